@@ -1,0 +1,34 @@
+import type { ErrorRequestHandler } from 'express'
+import { UniqueConstraintError, ValidationError } from 'sequelize'
+import { ZodError } from 'zod'
+import { HttpError, badRequest } from '../errors.js'
+import { logger } from '../logger.js'
+
+function toHttpError(err: unknown): HttpError {
+  if (err instanceof HttpError) return err
+  if (err instanceof ZodError) {
+    return badRequest(
+      'Invalid input',
+      err.issues.map((i) => ({ path: i.path.join('.'), message: i.message })),
+    )
+  }
+  // UniqueConstraintError extends ValidationError, so it must be tested first
+  if (err instanceof UniqueConstraintError) return new HttpError(409, 'CONFLICT', 'Already exists')
+  if (err instanceof ValidationError) {
+    return badRequest('Invalid data', err.errors.map((e) => ({ path: e.path ?? '', message: e.message })))
+  }
+  const e = err as { type?: string; status?: number; code?: string }
+  if (e?.type === 'entity.too.large') return new HttpError(413, 'PAYLOAD_TOO_LARGE', 'Request body too large')
+  if (e?.type === 'entity.parse.failed') return badRequest('Malformed JSON body')
+  if (e?.code === 'LIMIT_FILE_SIZE') return new HttpError(413, 'PAYLOAD_TOO_LARGE', 'File too large')
+  if (typeof e?.code === 'string' && e.code.startsWith('LIMIT_')) return badRequest(`Upload refused: ${e.code}`)
+  return new HttpError(500, 'INTERNAL', 'Internal error')
+}
+
+/** The only writer of error bodies; registered last in app.ts. */
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  const e = toHttpError(err)
+  if (e.status >= 500) logger.error({ err, requestId: req.id }, 'unhandled error')
+  if (res.headersSent) return
+  res.status(e.status).json({ error: { code: e.code, message: e.message, details: e.details } })
+}

@@ -1,0 +1,39 @@
+// `npm start`: everything needed to run Ellipsoid with demo data on a fresh Debian machine.
+import path from 'node:path'
+import { spawn } from 'node:child_process'
+import { ROOT, ensureClientBuild, ensureDependencies, must, persistentSecret, say } from './lib/run.mjs'
+import { devDatabase } from './lib/database.mjs'
+
+ensureDependencies()
+const db = devDatabase()
+const env = {
+  ...process.env,
+  DATABASE_URL: db.url,
+  NODE_ENV: process.env.NODE_ENV ?? 'production',
+  SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(path.join(ROOT, '.data'), 'session-secret'),
+}
+const tsx = path.join(ROOT, 'node_modules', '.bin', 'tsx')
+try {
+  must(tsx, ['server/scripts/prepare.ts'], { env })
+  ensureClientBuild()
+} catch (err) {
+  console.error(`[ellipsoid] ${err.message}`)
+  db.stop()
+  process.exit(1)
+}
+
+const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: 'inherit' })
+let stopping = false
+const stop = (signal) => {
+  if (stopping) return
+  stopping = true
+  say(`${signal}: stopping the server, then PostgreSQL…`)
+  server.kill('SIGTERM')
+}
+process.on('SIGINT', () => stop('SIGINT'))
+process.on('SIGTERM', () => stop('SIGTERM'))
+server.on('exit', (code) => {
+  db.stop()
+  say('stopped.')
+  process.exit(stopping ? 0 : (code ?? 1))
+})

@@ -1,0 +1,7 @@
+export * from './wgs84.js'
+export * from './geodesic.js'
+export * from './spherical.js'
+export * from './localOffset.js'
+export * from './bearing.js'
+export * from './slant.js'
+export * from './boresight.js'
