@@ -1,0 +1,3 @@
+export * from './wavelength.js'
+export * from './freeSpaceLoss.js'
+export * from './linkBudget.js'
