@@ -1,0 +1,5 @@
+export * from './logDistanceFit.js'
+export * from './fitSelection.js'
+export * from './predictions.js'
+export * from './matchedAdvantage.js'
+export * from './twoRay.js'

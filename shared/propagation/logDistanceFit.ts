@@ -1,0 +1,168 @@
+import { requireInRange, requirePositive } from '../units/guards.js'
+import { studentTQuantile } from '../stats/studentT.js'
+
+/** Log-distance model Pr(d) = Pr(d0) − 10·n·log10(d/d0). */
+export interface LogDistanceModel {
+  /** Received power at the reference distance, dBm. */
+  interceptDbm: number
+  /** Path-loss exponent n, dimensionless (2 in free space). */
+  exponent: number
+  /** Reference distance d0, metres. */
+  referenceDistanceM: number
+}
+
+/** Least-squares fit of a log-distance model with its uncertainty. */
+export interface LogDistanceFit extends LogDistanceModel {
+  /** Fitted slope of received power per decade of distance, dB/decade (= −10·n). */
+  slopeDbPerDecade: number
+  /** Number of samples used. */
+  sampleCount: number
+  /** Shadowing spread: residual standard deviation with N − 2 in the denominator, dB. */
+  residualSigmaDb: number
+  /** Residual standard deviation with N in the denominator, dB. */
+  residualSigmaPopulationDb: number
+  /** Coefficient of determination, 1 − SSR/SST. */
+  rSquared: number
+  /** Standard error of n. */
+  exponentStdErr: number
+  /** Standard error of the intercept, dB. */
+  interceptStdErrDb: number
+  /** Two-sided confidence level of the interval, e.g. 0.95. */
+  confidenceLevel: number
+  /** Lower bound of the confidence interval of n. */
+  exponentLower: number
+  /** Upper bound of the confidence interval of n. */
+  exponentUpper: number
+  /** Shortest and longest distance used, metres. */
+  minDistanceM: number
+  maxDistanceM: number
+}
+
+/** Options of {@link fitLogDistance}. */
+export interface LogDistanceFitOptions {
+  /** Reference distance d0 in metres, > 0 (default 1). */
+  referenceDistanceM?: number
+  /** Per-sample selection: non-zero means use the sample (default: all samples). */
+  include?: Uint8Array
+  /** Two-sided confidence level for n, in (0, 1) (default 0.95). */
+  confidenceLevel?: number
+}
+
+/**
+ * Ordinary least squares of received power on 10·log10(d/d0), giving n, intercept, shadowing σ, R² and a t-interval for n.
+ * @param distanceM distances in metres; used samples must be > 0
+ * @param rxPowerDbm received powers in dBm, same length; used samples must be finite
+ * @param options referenceDistanceM (> 0, default 1 m), include mask, confidenceLevel (default 0.95)
+ * @returns the fit; σ uses N − 2 (residualSigmaPopulationDb gives the N form)
+ * @throws RangeError when lengths differ, a used sample is invalid, fewer than 3 samples are used, or all distances are equal
+ */
+export function fitLogDistance(
+  distanceM: Float64Array,
+  rxPowerDbm: Float64Array,
+  options: LogDistanceFitOptions = {},
+): LogDistanceFit {
+  const d0 = requirePositive('referenceDistanceM', options.referenceDistanceM ?? 1)
+  const level = requireInRange('confidenceLevel', options.confidenceLevel ?? 0.95, 1e-9, 1 - 1e-9)
+  const include = options.include
+  const len = distanceM.length
+  if (rxPowerDbm.length !== len) throw new RangeError('rxPowerDbm must have the same length as distanceM')
+  if (include && include.length !== len) throw new RangeError('include must have the same length as distanceM')
+  // pass 1: means (centred sums keep the 1e-6 agreement with a QR least-squares solver)
+  let n = 0
+  let sx = 0
+  let sy = 0
+  let dMin = Infinity
+  let dMax = -Infinity
+  for (let i = 0; i < len; i++) {
+    if (include && include[i] === 0) continue
+    const d = distanceM[i]!
+    const y = rxPowerDbm[i]!
+    if (!(d > 0) || !Number.isFinite(d)) throw new RangeError(`distanceM[${i}] must be > 0, got ${d}`)
+    if (!Number.isFinite(y)) throw new RangeError(`rxPowerDbm[${i}] must be finite, got ${y}`)
+    sx += Math.log10(d / d0)
+    sy += y
+    n++
+    if (d < dMin) dMin = d
+    if (d > dMax) dMax = d
+  }
+  if (n < 3) throw new RangeError(`fitLogDistance needs at least 3 samples, got ${n}`)
+  const mx = sx / n
+  const my = sy / n
+  // pass 2: centred second moments
+  let sxx = 0
+  let sxy = 0
+  let syy = 0
+  for (let i = 0; i < len; i++) {
+    if (include && include[i] === 0) continue
+    const dx = Math.log10(distanceM[i]! / d0) - mx
+    const dy = rxPowerDbm[i]! - my
+    sxx += dx * dx
+    sxy += dx * dy
+    syy += dy * dy
+  }
+  if (!(sxx > 0)) throw new RangeError('distanceM must hold at least two different distances')
+  // OLS normal equations (e.g. Montgomery & Runger, Applied Statistics, §11.2)
+  const slope = sxy / sxx
+  const intercept = my - slope * mx
+  // pass 3: residuals directly, avoiding the cancellation in Syy − b·Sxy
+  let ssr = 0
+  for (let i = 0; i < len; i++) {
+    if (include && include[i] === 0) continue
+    const r = rxPowerDbm[i]! - (intercept + slope * Math.log10(distanceM[i]! / d0))
+    ssr += r * r
+  }
+  const sigma = Math.sqrt(ssr / (n - 2))
+  const seSlope = sigma / Math.sqrt(sxx)
+  const seIntercept = sigma * Math.sqrt(1 / n + (mx * mx) / sxx)
+  const exponent = -slope / 10
+  const seN = seSlope / 10
+  // two-sided t interval with N − 2 degrees of freedom (Montgomery & Runger §11.5)
+  const t = studentTQuantile(0.5 + level / 2, n - 2)
+  return {
+    interceptDbm: intercept,
+    exponent,
+    referenceDistanceM: d0,
+    slopeDbPerDecade: slope,
+    sampleCount: n,
+    residualSigmaDb: sigma,
+    residualSigmaPopulationDb: Math.sqrt(ssr / n),
+    rSquared: syy > 0 ? 1 - ssr / syy : 1,
+    exponentStdErr: seN,
+    interceptStdErrDb: seIntercept,
+    confidenceLevel: level,
+    exponentLower: exponent - t * seN,
+    exponentUpper: exponent + t * seN,
+    minDistanceM: dMin,
+    maxDistanceM: dMax,
+  }
+}
+
+/**
+ * Received power predicted by a log-distance model.
+ * @param model intercept (dBm), exponent (> 0) and reference distance (m, > 0)
+ * @param distanceM distance in metres, > 0
+ * @returns received power in dBm
+ * @throws RangeError when the distance or model terms are out of range
+ */
+export function predictRxPowerDbm(model: LogDistanceModel, distanceM: number): number {
+  requirePositive('distanceM', distanceM)
+  requirePositive('model.referenceDistanceM', model.referenceDistanceM)
+  requireInRange('model.interceptDbm', model.interceptDbm, -1e6, 1e6)
+  requireInRange('model.exponent', model.exponent, -1e6, 1e6)
+  // log-distance model (Rappaport, Wireless Communications §4.9)
+  return model.interceptDbm - 10 * model.exponent * Math.log10(distanceM / model.referenceDistanceM)
+}
+
+/**
+ * Path loss at the reference distance implied by a fit, PL(d0) = EIRP − Pr(d0).
+ * @param model fitted intercept in dBm
+ * @param eirpDbm EIRP of the transmitter in dBm (include the receive gain/losses if they are not in the fit), finite
+ * @returns reference loss in dB
+ * @throws RangeError when eirpDbm or the intercept is not finite
+ */
+export function referenceLossDb(model: LogDistanceModel, eirpDbm: number): number {
+  requireInRange('eirpDbm', eirpDbm, -1e6, 1e6)
+  requireInRange('model.interceptDbm', model.interceptDbm, -1e6, 1e6)
+  // log-distance model: Pr(d0) = EIRP − PL(d0)
+  return eirpDbm - model.interceptDbm
+}

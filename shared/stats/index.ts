@@ -1,0 +1,2 @@
+export * from './studentT.js'
+export * from './median.js'
