@@ -1,0 +1,7 @@
+export * from './zone.js'
+export * from './earthBulge.js'
+export * from './knifeEdge.js'
+export * from './clearance.js'
+export * from './terrainProfile.js'
+export * from './obstacles.js'
+export * from './groundClearance.js'

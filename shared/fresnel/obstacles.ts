@@ -1,0 +1,233 @@
+import { requireFinite, requireInRange, requireNonNegative } from '../units/guards.js'
+import { localOffsetM } from '../geo/localOffset.js'
+
+/** A geographic position in degrees. */
+export interface GeoPoint {
+  latDeg: number
+  lonDeg: number
+}
+
+/** Fields shared by all obstacle shapes. */
+interface ObstacleBase {
+  /** Height of the obstacle top above its base, metres (>= 0). */
+  heightM: number
+  /** Name shown to the user, e.g. "barn" or "tree line". */
+  label: string
+  /** Ground elevation at the obstacle above mean sea level, metres (default: the station's). */
+  baseElevationM?: number
+}
+
+/** A mast, tree or building corner; radiusM gives it a footprint (default 0). */
+export interface PointObstacle extends ObstacleBase {
+  kind: 'point'
+  position: GeoPoint
+  radiusM?: number
+}
+
+/** A wall, hedge or tree line. */
+export interface LineObstacle extends ObstacleBase {
+  kind: 'line'
+  path: GeoPoint[]
+}
+
+/** A building or wood outline (closed automatically). */
+export interface PolygonObstacle extends ObstacleBase {
+  kind: 'polygon'
+  ring: GeoPoint[]
+}
+
+/** Any obstacle near the radio path. */
+export type Obstacle = PointObstacle | LineObstacle | PolygonObstacle
+
+/** Obstacles projected to a flat east/north plane around the ground station, as typed arrays. */
+export interface PreparedObstacles {
+  labels: string[]
+  /** Edge endpoints (metres east/north of the station), top height above datum, owner index. */
+  segX1: Float64Array
+  segY1: Float64Array
+  segX2: Float64Array
+  segY2: Float64Array
+  segTopM: Float64Array
+  segOwner: Int32Array
+  /** Points and vertices: position, footprint radius, top above datum, owner index. */
+  ptX: Float64Array
+  ptY: Float64Array
+  ptRadiusM: Float64Array
+  ptTopM: Float64Array
+  ptOwner: Int32Array
+}
+
+/**
+ * Projects obstacles to east/north metres around the station (mid-latitude WGS-84 plane) for fast path tests.
+ * @param obstacles points, lines (>= 2 vertices) and polygons (>= 3 vertices), heights in metres >= 0
+ * @param origin ground station position in degrees
+ * @param originGroundElevationM station ground elevation above mean sea level in metres, finite (the datum)
+ * @returns edges and vertices as typed arrays; tops are heights above the datum
+ * @throws RangeError/TypeError when an obstacle is malformed
+ */
+export function prepareObstacles(
+  obstacles: readonly Obstacle[],
+  origin: GeoPoint,
+  originGroundElevationM: number,
+): PreparedObstacles {
+  requireFinite('originGroundElevationM', originGroundElevationM)
+  const seg: number[][] = [[], [], [], [], [], []]
+  const pt: number[][] = [[], [], [], [], []]
+  const labels: string[] = []
+  const project = (p: GeoPoint) => localOffsetM(origin.latDeg, origin.lonDeg, p.latDeg, p.lonDeg)
+  obstacles.forEach((o, idx) => {
+    if (typeof o.label !== 'string') throw new TypeError(`obstacles[${idx}].label must be a string`)
+    requireNonNegative(`obstacles[${idx}].heightM`, o.heightM)
+    const base = o.baseElevationM === undefined ? originGroundElevationM : o.baseElevationM
+    requireFinite(`obstacles[${idx}].baseElevationM`, base)
+    const top = base - originGroundElevationM + o.heightM
+    labels.push(o.label)
+    const addPoint = (x: number, y: number, r: number) => {
+      pt[0]!.push(x), pt[1]!.push(y), pt[2]!.push(r), pt[3]!.push(top), pt[4]!.push(idx)
+    }
+    if (o.kind === 'point') {
+      const p = project(o.position)
+      addPoint(p.eastM, p.northM, requireNonNegative(`obstacles[${idx}].radiusM`, o.radiusM ?? 0))
+      return
+    }
+    const verts = o.kind === 'line' ? o.path : o.kind === 'polygon' ? o.ring : null
+    if (verts === null) throw new TypeError(`obstacles[${idx}].kind must be point, line or polygon`)
+    const min = o.kind === 'line' ? 2 : 3
+    requireInRange(`obstacles[${idx}] vertex count`, verts.length, min, 1e6)
+    const xy = verts.map(project)
+    const edges = o.kind === 'polygon' ? xy.length : xy.length - 1
+    for (let k = 0; k < edges; k++) {
+      const a = xy[k]!
+      const b = xy[(k + 1) % xy.length]!
+      seg[0]!.push(a.eastM), seg[1]!.push(a.northM), seg[2]!.push(b.eastM), seg[3]!.push(b.northM)
+      seg[4]!.push(top), seg[5]!.push(idx)
+    }
+    // vertices catch a path that passes beside the obstacle without crossing it
+    for (const v of xy) addPoint(v.eastM, v.northM, 0)
+  })
+  return {
+    labels,
+    segX1: Float64Array.from(seg[0]!),
+    segY1: Float64Array.from(seg[1]!),
+    segX2: Float64Array.from(seg[2]!),
+    segY2: Float64Array.from(seg[3]!),
+    segTopM: Float64Array.from(seg[4]!),
+    segOwner: Int32Array.from(seg[5]!),
+    ptX: Float64Array.from(pt[0]!),
+    ptY: Float64Array.from(pt[1]!),
+    ptRadiusM: Float64Array.from(pt[2]!),
+    ptTopM: Float64Array.from(pt[3]!),
+    ptOwner: Int32Array.from(pt[4]!),
+  }
+}
+
+/** Reusable output of {@link worstObstacleClearance} (mutated in place, no allocation per call). */
+export interface ObstacleClearanceScratch {
+  /** Smallest clearance / F1 found; +Infinity when no obstacle is beside the path. */
+  fraction: number
+  /** Owner index of the worst obstacle, −1 when none. */
+  obstacleIndex: number
+  /** Clearance at the worst obstacle, metres. */
+  clearanceM: number
+  /** F1 radius at the worst obstacle, metres. */
+  f1RadiusM: number
+  /** Horizontal distance of the worst obstacle from the station, metres. */
+  distanceM: number
+}
+
+/**
+ * Creates a scratch object for {@link worstObstacleClearance}.
+ * @returns a scratch with no obstacle found
+ * @throws never
+ */
+export function createClearanceScratch(): ObstacleClearanceScratch {
+  return { fraction: Infinity, obstacleIndex: -1, clearanceM: Infinity, f1RadiusM: 0, distanceM: 0 }
+}
+
+/**
+ * Worst first-Fresnel-zone clearance fraction of a station→aircraft path over prepared obstacles (hot loop).
+ * @param prep obstacles from {@link prepareObstacles}
+ * @param aircraftEastM aircraft east of the station in metres, finite
+ * @param aircraftNorthM aircraft north of the station in metres, finite
+ * @param groundAntennaHeightM antenna height above datum in metres
+ * @param aircraftHeightM aircraft height above datum in metres
+ * @param wavelengthMetres carrier wavelength in metres, > 0
+ * @param twoKEarthRadiusM 2·k·Re in metres (bulge denominator), > 0
+ * @param out scratch written with the worst obstacle
+ * @returns the worst fraction (also in out.fraction); +Infinity when nothing is beside the path
+ * @throws never (the caller validates once per flight)
+ */
+export function worstObstacleClearance(
+  prep: PreparedObstacles,
+  aircraftEastM: number,
+  aircraftNorthM: number,
+  groundAntennaHeightM: number,
+  aircraftHeightM: number,
+  wavelengthMetres: number,
+  twoKEarthRadiusM: number,
+  out: ObstacleClearanceScratch,
+): number {
+  out.fraction = Infinity
+  out.obstacleIndex = -1
+  out.clearanceM = Infinity
+  out.f1RadiusM = 0
+  out.distanceM = 0
+  const ax = aircraftEastM
+  const ay = aircraftNorthM
+  const len2 = ax * ax + ay * ay
+  if (!(len2 > 0)) return Infinity
+  const pathM = Math.sqrt(len2)
+  const dh = aircraftHeightM - groundAntennaHeightM
+  const lamOverD = wavelengthMetres / pathM
+  // edges crossed by the ground track of the path: clearance straight over the crossing
+  const nSeg = prep.segX1.length
+  for (let s = 0; s < nSeg; s++) {
+    const x1 = prep.segX1[s]!
+    const y1 = prep.segY1[s]!
+    const ex = prep.segX2[s]! - x1
+    const ey = prep.segY2[s]! - y1
+    const denom = ax * ey - ay * ex
+    if (denom === 0) continue
+    const t = (x1 * ey - y1 * ex) / denom
+    if (!(t > 0 && t < 1)) continue
+    const u = (x1 * ay - y1 * ax) / denom
+    if (u < 0 || u > 1) continue
+    const d1 = t * pathM
+    const d2 = pathM - d1
+    // straight ray, parabolic bulge (ITU-R P.526 §4) and F1 radius (P.526 eq. 2)
+    const c = groundAntennaHeightM + dh * t - prep.segTopM[s]! - (d1 * d2) / twoKEarthRadiusM
+    const f1 = Math.sqrt(lamOverD * d1 * d2)
+    const f = c / f1
+    if (f < out.fraction) {
+      out.fraction = f
+      out.obstacleIndex = prep.segOwner[s]!
+      out.clearanceM = c
+      out.f1RadiusM = f1
+      out.distanceM = d1
+    }
+  }
+  // points and vertices beside the path: distance from the ray to the obstacle body
+  const nPt = prep.ptX.length
+  const invLen = 1 / pathM
+  for (let p = 0; p < nPt; p++) {
+    const px = prep.ptX[p]!
+    const py = prep.ptY[p]!
+    const t = (px * ax + py * ay) / len2
+    if (!(t > 0 && t < 1)) continue
+    const gap = Math.abs(px * ay - py * ax) * invLen - prep.ptRadiusM[p]!
+    const d1 = t * pathM
+    const d2 = pathM - d1
+    const cv = groundAntennaHeightM + dh * t - prep.ptTopM[p]! - (d1 * d2) / twoKEarthRadiusM
+    const c = gap <= 0 ? cv : cv >= 0 ? Math.sqrt(gap * gap + cv * cv) : gap
+    const f1 = Math.sqrt(lamOverD * d1 * d2)
+    const f = c / f1
+    if (f < out.fraction) {
+      out.fraction = f
+      out.obstacleIndex = prep.ptOwner[p]!
+      out.clearanceM = c
+      out.f1RadiusM = f1
+      out.distanceM = d1
+    }
+  }
+  return out.fraction
+}
