@@ -7,7 +7,10 @@ import { ensureCluster, stopCluster } from './lib/pg.mjs'
 
 ensureDependencies()
 const dataDir = path.join(ROOT, '.data', 'pg-bench')
-const url = process.env.BENCH_DATABASE_URL ?? ensureCluster({ dataDir, port: Number(process.env.PG_BENCH_PORT ?? 55434), database: 'ellipsoid_bench', fresh: true })
+const cluster = process.env.BENCH_DATABASE_URL
+  ? { url: process.env.BENCH_DATABASE_URL, started: false }
+  : ensureCluster({ dataDir, port: Number(process.env.PG_BENCH_PORT ?? 55434), database: 'ellipsoid_bench', fresh: true })
+const url = cluster.url
 const env = {
   ...process.env,
   DATABASE_URL: url,
@@ -33,6 +36,6 @@ try {
     if (code !== 0) failed++
   }
 } finally {
-  if (!process.env.BENCH_DATABASE_URL) stopCluster(dataDir)
+  if (cluster.started) stopCluster(dataDir)
 }
 process.exit(failed ? 1 : 0)
