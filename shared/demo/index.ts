@@ -1,0 +1,6 @@
+export * from './random.js'
+export * from './localInverse.js'
+export * from './flightPath.js'
+export * from './signalModel.js'
+export * from './generateFlight.js'
+export * from './shadowField.js'
