@@ -1,0 +1,197 @@
+import type { ColumnMapping, ColumnRole } from './mapping.js'
+import { parseDateTimeCells, parseNumberCell, parseTimeCell } from './cellValues.js'
+
+const FT_TO_M = 0.3048
+
+/** Plausible ranges; a value outside is a bad row, not a clipped value. */
+export const SIGNAL_DBM_RANGE = [-150, 20] as const
+export const LQ_PCT_RANGE = [0, 100] as const
+export const SNR_DB_RANGE = [-60, 80] as const
+export const ALT_M_RANGE = [-1000, 20_000] as const
+
+/** Converted values of one row; NaN marks a value the row does not have. */
+export interface SampleRow {
+  /** ms from the first stored row. */
+  tMs: number
+  lat: number
+  lon: number
+  altM: number
+  rssi1Dbm: number
+  rssi2Dbm: number
+  lq: number
+  snr: number
+  /** Extra columns as written, or null when the mapping keeps none. */
+  extras: Record<string, string> | null
+}
+
+/** Why a row was refused, naming the column. */
+export interface RowProblem {
+  column: string
+  reason: string
+}
+
+/** Outcome of converting one row. */
+export type RowOutcome = 'ok' | 'no-fix' | RowProblem
+
+export interface RowConverterOptions {
+  /** Ground elevation at the station, m AMSL; used when altitude is above sea level. */
+  groundElevM: number
+}
+
+/** A mapped column that the header does not have. */
+export class MappingMismatchError extends Error {
+  constructor(public column: string) {
+    super(`The file has no column "${column}" that the mapping uses`)
+  }
+}
+
+interface Slot {
+  index: number
+  name: string
+}
+
+/**
+ * Converts and validates delimited rows under a column mapping: units to metres and dBm, time to ms from the first
+ * row, range checks, time never going backwards, and leading rows without a GPS fix (0, 0) skipped.
+ */
+export class RowConverter {
+  private readonly slot: Partial<Record<ColumnRole, Slot>> = {}
+  private readonly extras: Slot[] = []
+  private readonly needed: number
+  private t0 = NaN
+  private lastT = -Infinity
+  private stored = 0
+
+  /**
+   * @param mapping the confirmed mapping
+   * @param header header cells of this file
+   * @param options ground elevation for AMSL altitudes
+   * @throws MappingMismatchError when a mapped column is not in the header
+   */
+  constructor(
+    private readonly mapping: ColumnMapping,
+    header: readonly string[],
+    private readonly options: RowConverterOptions,
+  ) {
+    const names = header.map((h) => h.trim().toLowerCase())
+    let needed = 0
+    for (const c of mapping.columns) {
+      if (c.role === 'ignore') continue
+      const want = c.name.trim().toLowerCase()
+      const index = names[c.index] === want ? c.index : names.indexOf(want)
+      if (index < 0) throw new MappingMismatchError(c.name)
+      const s = { index, name: c.name }
+      if (c.role === 'extra') this.extras.push(s)
+      else this.slot[c.role] = s
+      needed = Math.max(needed, index + 1)
+    }
+    this.needed = needed
+  }
+
+  /** Rows accepted so far. */
+  get rowsAccepted(): number {
+    return this.stored
+  }
+
+  /**
+   * Converts one row into `out`; on a problem `out` is left partly written and must be ignored.
+   * @param fields the row's cells
+   * @param out reused result object
+   * @returns 'ok', 'no-fix' for a leading row without a GPS fix, or the problem
+   */
+  convert(fields: readonly string[], out: SampleRow): RowOutcome {
+    if (fields.length < this.needed) {
+      return { column: '*', reason: `has ${fields.length} fields, the mapping needs ${this.needed}` }
+    }
+    const m = this.mapping
+    const dc = m.decimalComma
+    const s = this.slot
+    const lat = parseNumberCell(fields[s.lat!.index]!, dc)
+    if (!(lat >= -90 && lat <= 90)) return problem(s.lat!, fields, 'latitude must be a number in [-90, 90]')
+    const lon = parseNumberCell(fields[s.lon!.index]!, dc)
+    if (!(lon >= -180 && lon <= 180)) return problem(s.lon!, fields, 'longitude must be a number in [-180, 180]')
+    if (lat === 0 && lon === 0) {
+      return this.stored === 0 ? 'no-fix' : { column: s.lat!.name, reason: 'no GPS fix (0, 0)' }
+    }
+    const abs =
+      m.timeFormat === 'date+time'
+        ? parseDateTimeCells(fields[s.date!.index]!, fields[s.time!.index]!)
+        : parseTimeCell(fields[s.time!.index]!, m.timeFormat, dc)
+    if (!Number.isFinite(abs)) return problem(s.time!, fields, 'time is missing or unreadable')
+    const t = this.stored === 0 ? 0 : abs - this.t0
+    if (t < this.lastT) return { column: s.time!.name, reason: 'time goes backwards' }
+    const rssi1 = this.signal(fields[s.rssi1!.index]!)
+    if (Number.isNaN(rssi1)) return problem(s.rssi1!, fields, this.signalReason())
+    let rssi2 = NaN
+    if (s.rssi2) {
+      const cell = fields[s.rssi2.index]!
+      rssi2 = this.signal(cell)
+      if (Number.isNaN(rssi2) && cell.trim() !== '') return { column: s.rssi2.name, reason: this.signalReason() }
+    }
+    const altM = s.alt ? this.altitude(fields[s.alt.index]!) : NaN
+    if (s.alt && Number.isNaN(altM)) return problem(s.alt, fields, 'altitude must be a number in metres or feet')
+    const lq = s.lq ? optional(fields[s.lq.index]!, dc, LQ_PCT_RANGE) : NaN
+    if (lq === null) return { column: s.lq!.name, reason: 'link quality must be a number in [0, 100]' }
+    const snr = s.snr ? optional(fields[s.snr.index]!, dc, SNR_DB_RANGE) : NaN
+    if (snr === null) return { column: s.snr!.name, reason: 'SNR must be a number in [-60, 80] dB' }
+    if (this.stored === 0) this.t0 = abs
+    this.lastT = t
+    this.stored++
+    out.tMs = t
+    out.lat = lat
+    out.lon = lon
+    out.altM = altM
+    out.rssi1Dbm = rssi1
+    out.rssi2Dbm = rssi2
+    out.lq = lq
+    out.snr = snr
+    out.extras = this.extras.length ? this.readExtras(fields) : null
+    return 'ok'
+  }
+
+  private signal(cell: string): number {
+    const v = parseNumberCell(cell, this.mapping.decimalComma)
+    if (this.mapping.signalUnit === 'percent') {
+      if (!(v >= 0 && v <= 100)) return NaN
+      const pm = this.mapping.percentMap!
+      return pm.pct0Dbm + (v / 100) * (pm.pct100Dbm - pm.pct0Dbm)
+    }
+    return v >= SIGNAL_DBM_RANGE[0] && v <= SIGNAL_DBM_RANGE[1] ? v : NaN
+  }
+
+  private signalReason(): string {
+    return this.mapping.signalUnit === 'percent'
+      ? 'signal must be a percentage in [0, 100]'
+      : `signal must be a number in [${SIGNAL_DBM_RANGE[0]}, ${SIGNAL_DBM_RANGE[1]}] dBm`
+  }
+
+  private altitude(cell: string): number {
+    let v = parseNumberCell(cell, this.mapping.decimalComma)
+    if (this.mapping.altUnit === 'ft') v *= FT_TO_M
+    if (this.mapping.altReference === 'amsl') v -= this.options.groundElevM
+    return v >= ALT_M_RANGE[0] && v <= ALT_M_RANGE[1] ? v : NaN
+  }
+
+  private readExtras(fields: readonly string[]): Record<string, string> {
+    const o: Record<string, string> = {}
+    for (const e of this.extras) o[e.name] = fields[e.index] ?? ''
+    return o
+  }
+}
+
+function problem(slot: Slot, fields: readonly string[], reason: string): RowProblem {
+  const cell = fields[slot.index] ?? ''
+  return { column: slot.name, reason: cell.trim() === '' ? `${slot.name} is empty` : reason }
+}
+
+/** An optional numeric cell: NaN when blank, null when present but unreadable or out of range. */
+function optional(cell: string, dc: boolean, range: readonly [number, number]): number | null {
+  const v = parseNumberCell(cell, dc)
+  if (Number.isNaN(v)) return cell.trim() === '' ? NaN : null
+  return v >= range[0] && v <= range[1] ? v : null
+}
+
+/** A fresh, reusable row object. */
+export function emptySampleRow(): SampleRow {
+  return { tMs: 0, lat: 0, lon: 0, altM: NaN, rssi1Dbm: NaN, rssi2Dbm: NaN, lq: NaN, snr: NaN, extras: null }
+}
