@@ -20,7 +20,9 @@ export function createApp(): Express {
   app.set('trust proxy', cfg.trustProxy)
   app.set('query parser', 'simple')
 
-  // Headers first so every response, errors included, carries them.
+  // Headers first so every response, errors included, carries them. HSTS and upgrade-insecure-requests
+  // only when served over HTTPS: on plain http://127.0.0.1 they would break the app in some browsers.
+  const https = cfg.publicUrl.startsWith('https:')
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -28,21 +30,27 @@ export function createApp(): Express {
           'base-uri': ["'none'"],
           'frame-ancestors': ["'none'"],
           'img-src': ["'self'", 'data:', 'blob:', ...tileHosts(cfg.tileUrl)],
-          'upgrade-insecure-requests': cfg.nodeEnv === 'production' ? [] : null,
+          'upgrade-insecure-requests': https ? [] : null,
         },
       },
+      strictTransportSecurity: https ? { maxAge: 31_536_000, includeSubDomains: true } : false,
     }),
   )
-  // Request ids before logging so each log line carries one.
+  // Request ids before logging so each log line carries one. Log lines stay short: no headers, so
+  // cookies and CSRF tokens never reach the logs; query strings (reset/invite tokens) are cut off.
   app.use(
     pinoHttp({
       logger,
-      genReqId: (req, res) => {
+      genReqId: (_req, res) => {
         const id = randomUUID()
         res.setHeader('X-Request-Id', id)
         return id
       },
       autoLogging: cfg.nodeEnv !== 'test',
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url.split('?')[0] }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
     }),
   )
   // API responses are per-user data: never cached by browsers or proxies.

@@ -1,3 +1,6 @@
+import { config } from './config.js'
+import { startMailSink, stopMailSink } from './services/mailSink.js'
+
 /**
  * Long-lived services started beside the HTTP server (mail sink, job workers), in order;
  * stopped in reverse. Each feature adds its pair to SERVICES.
@@ -8,7 +11,15 @@ export interface BackgroundService {
   stop: () => Promise<void>
 }
 
-const SERVICES: BackgroundService[] = []
+const SERVICES: BackgroundService[] = [
+  {
+    name: 'mail sink',
+    start: async () => {
+      if (!config().smtpUrl) await startMailSink()
+    },
+    stop: stopMailSink,
+  },
+]
 
 export async function startBackground(): Promise<void> {
   for (const s of SERVICES) await s.start()

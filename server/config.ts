@@ -18,6 +18,16 @@ export interface Config {
   badRowShare: number
   bcryptCost: number
   jobPollSeconds: number
+  /** Loopback port of the local SMTP sink used when SMTP_URL is unset; 0 = any free port. */
+  mailSinkPort: number
+  /** Sessions end after this long without a request (rolling). */
+  sessionIdleMinutes: number
+  /** Sessions end this long after sign-in whatever the activity. */
+  sessionMaxHours: number
+  /** Sign-in attempts allowed per account, and per client address, in one window. */
+  loginMaxPerAccount: number
+  loginMaxPerAddress: number
+  loginWindowMinutes: number
 }
 
 function parseTrustProxy(v: string | undefined): string | number | boolean {
@@ -69,6 +79,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Readonly<Confi
     badRowShare: num('BAD_ROW_SHARE', 0.02, 0, 1),
     bcryptCost: num('BCRYPT_COST', 12, 4, 15),
     jobPollSeconds: num('JOB_POLL_SECONDS', nodeEnv === 'test' ? 0.5 : 2, 0.5, 60),
+    mailSinkPort: num('MAIL_SINK_PORT', 0, 0, 65535),
+    sessionIdleMinutes: num('SESSION_IDLE_MINUTES', 480, 1, 10_080),
+    sessionMaxHours: num('SESSION_MAX_HOURS', 24, 1, 720),
+    loginMaxPerAccount: num('LOGIN_MAX_PER_ACCOUNT', 10, 1, 100),
+    loginMaxPerAddress: num('LOGIN_MAX_PER_ADDRESS', 100, 1, 100_000),
+    loginWindowMinutes: num('LOGIN_WINDOW_MINUTES', 15, 1, 1440),
   }
   if (problems.length) throw new Error(`Bad configuration:\n- ${problems.join('\n- ')}`)
   return Object.freeze(cfg)

@@ -10,6 +10,9 @@ export class HttpError extends Error {
   ) {
     super(message)
   }
+
+  /** Seconds for a Retry-After header (429 only). */
+  retryAfterS?: number
 }
 
 export const badRequest = (message: string, details?: FieldIssue[]) =>

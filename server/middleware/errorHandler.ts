@@ -30,5 +30,6 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const e = toHttpError(err)
   if (e.status >= 500) logger.error({ err, requestId: req.id }, 'unhandled error')
   if (res.headersSent) return
+  if (e.retryAfterS !== undefined) res.setHeader('Retry-After', String(e.retryAfterS))
   res.status(e.status).json({ error: { code: e.code, message: e.message, details: e.details } })
 }

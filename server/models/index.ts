@@ -1,6 +1,23 @@
 import type { Sequelize } from 'sequelize'
+import { Team } from './Team.js'
+import { User } from './User.js'
+import { Membership } from './Membership.js'
+import { Invite } from './Invite.js'
+import { PasswordReset } from './PasswordReset.js'
+import { OutgoingMail } from './OutgoingMail.js'
 
 /** Initialises every model and its associations; each feature adds its init call here. */
 export function initModels(sequelize: Sequelize): void {
-  void sequelize
+  Team.initModel(sequelize)
+  User.initModel(sequelize)
+  Membership.initModel(sequelize)
+  Invite.initModel(sequelize)
+  PasswordReset.initModel(sequelize)
+  OutgoingMail.initModel(sequelize)
+
+  Membership.belongsTo(User, { as: 'user', foreignKey: 'userId' })
+  Membership.belongsTo(Team, { as: 'team', foreignKey: 'teamId' })
+  User.hasMany(Membership, { as: 'memberships', foreignKey: 'userId' })
+  Team.hasMany(Membership, { as: 'memberships', foreignKey: 'teamId' })
+  Invite.belongsTo(Team, { as: 'team', foreignKey: 'teamId' })
 }
