@@ -1,0 +1,2 @@
+export * from './powerLimits.js'
+export * from './linkPlan.js'
