@@ -3,7 +3,9 @@ import type { ListResult, MemberDto, Role } from '../../shared/types/api.js'
 import { sequelize } from '../db.js'
 import { conflict, notFound } from '../errors.js'
 import { Membership } from '../models/Membership.js'
+import { Team } from '../models/Team.js'
 import { User } from '../models/User.js'
+import { hashPassword } from './passwords.js'
 
 function toMemberDto(m: Membership): MemberDto {
   return { userId: m.userId, email: m.user?.email ?? '', name: m.user?.name ?? '', role: m.role }
@@ -56,4 +58,35 @@ export async function removeMember(teamId: number, userId: number): Promise<void
     await guardLastAdmin(teamId, m, transaction)
     await m.destroy({ transaction })
   })
+}
+
+/**
+ * Creates a team and its members in one transaction (demo seed and fixtures); passwords are hashed
+ * at the configured bcrypt cost, one hash per distinct password.
+ * @returns the team id and each user's id, in input order
+ */
+export async function createTeamWithMembers(
+  teamName: string,
+  members: { email: string; name: string; password: string; role: Role }[],
+): Promise<{ teamId: number; userIds: number[] }> {
+  const hashes = new Map<string, string>()
+  for (const m of members) if (!hashes.has(m.password)) hashes.set(m.password, await hashPassword(m.password))
+  return sequelize().transaction(async (transaction) => {
+    const team = await Team.create({ name: teamName }, { transaction })
+    const userIds: number[] = []
+    for (const m of members) {
+      const user = await User.create(
+        { email: m.email.toLowerCase(), name: m.name, passwordHash: hashes.get(m.password)!, currentTeamId: team.id },
+        { transaction },
+      )
+      await Membership.create({ userId: user.id, teamId: team.id, role: m.role }, { transaction })
+      userIds.push(user.id)
+    }
+    return { teamId: team.id, userIds }
+  })
+}
+
+/** How many user accounts exist (the demo seeds only an empty database). */
+export async function countUsers(): Promise<number> {
+  return User.count()
 }

@@ -1,5 +1,6 @@
 // The demo scenario: an invented club at an invented field. Filled in by the features that own its parts.
 import type { Role } from '../../../shared/types/api.js'
+import { countUsers, createTeamWithMembers } from '../../services/members.js'
 
 export interface DemoUser {
   email: string
@@ -17,7 +18,24 @@ export const DEMO_USERS: DemoUser[] = [
   { email: 'viewer@heronmoor.example.test', name: 'Vera Linney', role: 'viewer', password: DEMO_PASSWORD },
 ]
 
+export const DEMO_TEAM_NAME = 'Heron Moor Model Flyers'
+
+/** Ids of the seeded demo team and its users, keyed by role, for the later seed steps. */
+export interface DemoTeamIds {
+  teamId: number
+  userIds: Record<Role, number>
+}
+
+/** Creates the demo club with one user per role (bcrypt cost from config). */
+export async function seedDemoTeam(): Promise<DemoTeamIds> {
+  const { teamId, userIds } = await createTeamWithMembers(DEMO_TEAM_NAME, DEMO_USERS)
+  const byRole = Object.fromEntries(DEMO_USERS.map((u, i) => [u.role, userIds[i]!])) as Record<Role, number>
+  return { teamId, userIds: byRole }
+}
+
 /** Seeds the demo when the database holds no users; returns true when it did. */
 export async function seedDemoIfEmpty(): Promise<boolean> {
-  return false
+  if ((await countUsers()) > 0) return false
+  await seedDemoTeam()
+  return true
 }
