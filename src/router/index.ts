@@ -1,9 +1,113 @@
-import { createRouter, createWebHistory } from 'vue-router'
+import { createRouter, createWebHistory, type RouteLocationNormalized } from 'vue-router'
+import type { Role } from '@shared/types/api'
 import HomeView from '@/views/HomeView.vue'
+import { useAuthStore } from '@/stores/auth'
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Reachable without signing in. */
+    public?: boolean
+    /** Only for signed-out visitors (sign in, sign up): signed-in users go home. */
+    guestOnly?: boolean
+    /** Roles allowed; absent means any signed-in role. */
+    roles?: Role[]
+    /** Rendered without the signed-in frame (sign-in, invite and password pages). */
+    bare?: boolean
+    /** Page title shown in the browser tab. */
+    title?: string
+  }
+}
 
 export const router = createRouter({
   history: createWebHistory(),
-  routes: [{ path: '/', name: 'home', component: HomeView }],
+  routes: [
+    { path: '/', name: 'home', component: HomeView, meta: { title: 'Overview' } },
+    {
+      path: '/sign-in',
+      name: 'sign-in',
+      component: () => import('@/views/SignInView.vue'),
+      meta: { public: true, guestOnly: true, bare: true, title: 'Sign in' },
+    },
+    {
+      path: '/sign-up',
+      name: 'sign-up',
+      component: () => import('@/views/SignUpView.vue'),
+      meta: { public: true, guestOnly: true, bare: true, title: 'Create an account' },
+    },
+    {
+      path: '/forgot-password',
+      name: 'forgot-password',
+      component: () => import('@/views/ForgotPasswordView.vue'),
+      meta: { public: true, bare: true, title: 'Forgot password' },
+    },
+    {
+      path: '/reset-password',
+      name: 'reset-password',
+      component: () => import('@/views/ResetPasswordView.vue'),
+      props: (route) => ({ token: String(route.query.token ?? '') }),
+      meta: { public: true, bare: true, title: 'Choose a new password' },
+    },
+    {
+      path: '/accept-invite',
+      name: 'accept-invite',
+      alias: ['/invites/accept'],
+      component: () => import('@/views/AcceptInviteView.vue'),
+      props: (route) => ({ token: String(route.query.token ?? '') }),
+      meta: { public: true, bare: true, title: 'Join a team' },
+    },
+    {
+      path: '/account',
+      name: 'account',
+      component: () => import('@/views/AccountView.vue'),
+      meta: { title: 'My account' },
+    },
+    {
+      path: '/team/members',
+      name: 'team-members',
+      component: () => import('@/views/TeamMembersView.vue'),
+      meta: { title: 'Team members' },
+    },
+    {
+      path: '/dev/outbox',
+      name: 'dev-outbox',
+      component: () => import('@/views/DevOutboxView.vue'),
+      meta: { roles: ['admin'], title: 'Sent e-mail (dev)' },
+    },
+    {
+      path: '/:pathMatch(.*)*',
+      name: 'not-found',
+      component: () => import('@/views/NotFoundView.vue'),
+      meta: { public: true, title: 'Page not found' },
+    },
+  ],
+})
+
+/** Where a navigation must go instead, or true to let it through. */
+export async function authGuard(to: RouteLocationNormalized) {
+  const auth = useAuthStore()
+  try {
+    await auth.ensureLoaded()
+  } catch {
+    // server unreachable: public pages still open, the rest goes to sign-in which shows the error
+  }
+  if (to.meta.public) {
+    return to.meta.guestOnly && auth.isSignedIn ? safeRedirect(to.query.redirect) : true
+  }
+  if (!auth.isSignedIn) return { name: 'sign-in', query: { redirect: to.fullPath } }
+  if (to.meta.roles && (auth.role === null || !to.meta.roles.includes(auth.role))) {
+    return { name: 'home' }
+  }
+  return true
+}
+
+/** Only same-app paths: `?redirect=https://elsewhere` must not send a user away. */
+export function safeRedirect(raw: unknown): string {
+  return typeof raw === 'string' && raw.startsWith('/') && !raw.startsWith('//') ? raw : '/'
+}
+
+router.beforeEach(authGuard)
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Ellipsoid` : 'Ellipsoid'
 })
 
 export default router
