@@ -7,6 +7,7 @@ import { pinoHttp } from 'pino-http'
 import { config } from './config.js'
 import { logger } from './logger.js'
 import { apiRouter } from './routes/index.js'
+import { tilesRouter } from './routes/tiles.js'
 import { notFound } from './middleware/notFound.js'
 import { errorHandler } from './middleware/errorHandler.js'
 
@@ -60,6 +61,8 @@ export function createApp(): Express {
   })
   app.use('/api', apiRouter())
   app.use('/api', notFound)
+  // Local map tiles: outside /api (no session, cacheable), before the client's catch-all route.
+  app.use('/tiles', tilesRouter)
 
   if (fs.existsSync(path.join(DIST, 'index.html'))) {
     app.use(express.static(DIST, { index: false, maxAge: '1h' }))

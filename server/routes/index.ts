@@ -7,6 +7,9 @@ import { accountRouter } from './account.js'
 import { teamsRouter } from './teams.js'
 import { invitesRouter } from './invites.js'
 import { devRouter } from './dev.js'
+import { coursesRouter } from './courses.js'
+import { setupsRouter } from './setups.js'
+import { mapConfigRouter } from './mapConfig.js'
 
 /** The /api router: body parsing for JSON, then one router per resource. */
 export function apiRouter(): Router {
@@ -22,5 +25,8 @@ export function apiRouter(): Router {
   api.use('/teams', teamsRouter)
   api.use('/invites', invitesRouter)
   api.use('/dev', devRouter)
+  api.use('/courses', coursesRouter)
+  api.use('/setups', setupsRouter)
+  api.use('/config', mapConfigRouter)
   return api
 }

@@ -1,0 +1,161 @@
+import { Op, ForeignKeyConstraintError, type WhereOptions } from 'sequelize'
+import type { AuthContext } from '../types/express.js'
+import type { ListResult } from '../../shared/types/api.js'
+import type { CourseDto, CourseSortKey, CourseTerrainDto } from '../../shared/types/course.js'
+import type { CourseInput, CourseListQuery } from '../../shared/schemas/course.js'
+import { conflict, forbidden, notFound } from '../errors.js'
+import { canEditOwned } from '../middleware/auth.js'
+import { sequelize } from '../db.js'
+import { Course } from '../models/Course.js'
+import { CourseTerrain } from '../models/CourseTerrain.js'
+import { idsUsedByFlights } from './flightUsage.js'
+
+const SORT_COLUMNS: Record<CourseSortKey, string> = { name: 'name', createdAt: 'createdAt', updatedAt: 'updatedAt' }
+const TERRAIN_SUMMARY = { exclude: ['elevations'] }
+
+function toTerrainDto(t: CourseTerrain): CourseTerrainDto {
+  return {
+    id: t.id,
+    format: t.format,
+    fileName: t.fileName,
+    width: t.width,
+    height: t.height,
+    bbox: [t.west, t.south, t.east, t.north],
+    minElevM: t.minElevM,
+    maxElevM: t.maxElevM,
+    createdAt: t.createdAt.toISOString(),
+  }
+}
+
+async function terrainsById(ids: (number | null)[]): Promise<Map<number, CourseTerrain>> {
+  const wanted = ids.filter((x): x is number => x !== null)
+  if (wanted.length === 0) return new Map()
+  const rows = await CourseTerrain.findAll({ where: { id: wanted }, attributes: TERRAIN_SUMMARY })
+  return new Map(rows.map((t) => [t.id, t]))
+}
+
+/** Maps a course row (and its terrain summary, if any) to its DTO. */
+export function toCourseDto(c: Course, terrain: CourseTerrain | null): CourseDto {
+  return {
+    id: c.id,
+    teamId: c.teamId,
+    createdBy: c.createdBy,
+    name: c.name,
+    notes: c.notes,
+    stationLat: c.stationLat,
+    stationLon: c.stationLon,
+    antennaHeightM: c.antennaHeightM,
+    groundElevM: c.groundElevM,
+    route: c.route,
+    obstacles: c.obstacles ?? [],
+    terrainId: c.terrainId ?? null,
+    hasTerrain: terrain !== null,
+    terrain: terrain ? toTerrainDto(terrain) : null,
+    createdAt: c.createdAt.toISOString(),
+    updatedAt: c.updatedAt.toISOString(),
+  }
+}
+
+function escapeLike(s: string): string {
+  return s.replace(/[\\%_]/g, (ch) => `\\${ch}`)
+}
+
+/**
+ * The team's courses, searched by name or notes, sorted by a whitelisted column, one page.
+ * @param teamId the caller's team
+ * @param q search text, sort key, order, limit (1–200) and offset
+ * @returns one page and the total count
+ */
+export async function listCourses(teamId: number, q: CourseListQuery): Promise<ListResult<CourseDto>> {
+  const where: WhereOptions = { teamId }
+  if (q.q) {
+    const like = `%${escapeLike(q.q)}%`
+    Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: like } }, { notes: { [Op.iLike]: like } }] })
+  }
+  const { rows, count } = await Course.findAndCountAll({
+    where,
+    order: [
+      [SORT_COLUMNS[q.sort], q.order.toUpperCase()],
+      ['id', 'ASC'],
+    ],
+    limit: q.limit,
+    offset: q.offset,
+  })
+  const terrains = await terrainsById(rows.map((r) => r.terrainId ?? null))
+  return { items: rows.map((r) => toCourseDto(r, terrains.get(r.terrainId ?? -1) ?? null)), total: count }
+}
+
+/**
+ * The course row of a team; another team's course answers 404 like a missing one.
+ * @throws HttpError 404 NOT_FOUND
+ */
+export async function findCourseRow(teamId: number, id: number): Promise<Course> {
+  const row = await Course.findOne({ where: { id, teamId } })
+  if (!row) throw notFound(`Course ${id}`)
+  return row
+}
+
+/**
+ * One course of the caller's team.
+ * @throws HttpError 404 NOT_FOUND for an unknown id or another team's course
+ */
+export async function getCourse(teamId: number, id: number): Promise<CourseDto> {
+  const row = await findCourseRow(teamId, id)
+  const terrains = await terrainsById([row.terrainId ?? null])
+  return toCourseDto(row, terrains.get(row.terrainId ?? -1) ?? null)
+}
+
+/**
+ * A course by id without team scoping, for server-side callers (analysis jobs) that already hold a
+ * flight of the same team.
+ * @returns the course, or null when it does not exist
+ */
+export async function loadCourse(id: number): Promise<CourseDto | null> {
+  const row = await Course.findByPk(id)
+  if (!row) return null
+  const terrains = await terrainsById([row.terrainId ?? null])
+  return toCourseDto(row, terrains.get(row.terrainId ?? -1) ?? null)
+}
+
+/**
+ * Creates a course in the caller's team.
+ * @param auth the caller (a writing role; checked by the route)
+ * @param input validated course fields
+ * @returns the created course
+ */
+export async function createCourse(auth: AuthContext, input: CourseInput): Promise<CourseDto> {
+  const row = await Course.create({ ...input, teamId: auth.teamId, createdBy: auth.userId })
+  return toCourseDto(row, null)
+}
+
+/**
+ * Replaces a course's fields (the terrain stays).
+ * @throws HttpError 404 for another team's course
+ */
+export async function updateCourse(auth: AuthContext, id: number, input: CourseInput): Promise<CourseDto> {
+  const row = await findCourseRow(auth.teamId, id)
+  await row.update({ ...input })
+  return getCourse(auth.teamId, id)
+}
+
+/**
+ * Deletes a course and its terrain. Only its creator or an admin may delete.
+ * @throws HttpError 404 for another team's course, 403 for someone else's course, 409 when flights use it
+ */
+export async function deleteCourse(auth: AuthContext, id: number): Promise<void> {
+  const row = await findCourseRow(auth.teamId, id)
+  if (!canEditOwned(auth, row.createdBy)) throw forbidden('Only the course’s creator or an admin can delete it')
+  const inUse = () => conflict('Flights use this course; delete them first')
+  try {
+    await sequelize().transaction(async (transaction) => {
+      if ((await idsUsedByFlights('course_id', [id], transaction)).size > 0) throw inUse()
+      await row.update({ terrainId: null }, { transaction })
+      await CourseTerrain.destroy({ where: { courseId: id }, transaction })
+      await row.destroy({ transaction })
+    })
+  } catch (e) {
+    // a flight inserted meanwhile trips the RESTRICT foreign key
+    if (e instanceof ForeignKeyConstraintError) throw inUse()
+    throw e
+  }
+}

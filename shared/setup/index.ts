@@ -1,0 +1,2 @@
+export * from './beamwidth.js'
+export * from './derive.js'
