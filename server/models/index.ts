@@ -8,9 +8,6 @@ import { OutgoingMail } from './OutgoingMail.js'
 import { Course } from './Course.js'
 import { CourseTerrain } from './CourseTerrain.js'
 import { LinkSetup } from './LinkSetup.js'
-import { Flight } from './Flight.js'
-import { FlightImport } from './FlightImport.js'
-import { ColumnMapping } from './ColumnMapping.js'
 
 /** Initialises every model and its associations; each feature adds its init call here. */
 export function initModels(sequelize: Sequelize): void {
@@ -23,9 +20,6 @@ export function initModels(sequelize: Sequelize): void {
   Course.initModel(sequelize)
   CourseTerrain.initModel(sequelize)
   LinkSetup.initModel(sequelize)
-  Flight.initModel(sequelize)
-  FlightImport.initModel(sequelize)
-  ColumnMapping.initModel(sequelize)
 
   Membership.belongsTo(User, { as: 'user', foreignKey: 'userId' })
   Membership.belongsTo(Team, { as: 'team', foreignKey: 'teamId' })
