@@ -103,3 +103,26 @@ export async function signedInToTeam(app: Express, teamId: number, role: Role, e
 export async function signedInElsewhere(app: Express, role: Role = 'admin'): Promise<SignedIn> {
   return signedIn(app, { role })
 }
+
+export interface DeliveredMail {
+  id: number
+  to: string
+  subject: string
+  text: string
+}
+
+/** Messages the local SMTP sink really received for `to`, newest first. */
+export async function mailsTo(to: string): Promise<DeliveredMail[]> {
+  const { rows } = await pgPool().query<DeliveredMail>(
+    `SELECT id, "to", subject, text FROM outgoing_mail WHERE "to" = $1 ORDER BY id DESC`,
+    [to.toLowerCase()],
+  )
+  return rows
+}
+
+/** The first link in a message to `${publicUrl}${path}?token=…`, as a URL (throws when absent). */
+export function linkIn(text: string, path: string): URL {
+  const m = text.match(new RegExp(`https?://\\S+${path.replace(/[/-]/g, '\\$&')}\\?token=[A-Za-z0-9_%-]+`))
+  if (!m) throw new Error(`no ${path} link in: ${text}`)
+  return new URL(m[0])
+}
