@@ -55,6 +55,15 @@ export interface PreparedObstacles {
   ptRadiusM: Float64Array
   ptTopM: Float64Array
   ptOwner: Int32Array
+  /** Per obstacle: first edge, edge end (exclusive), first point, point end (exclusive). */
+  segStart: Int32Array
+  segEnd: Int32Array
+  ptStart: Int32Array
+  ptEnd: Int32Array
+  /** Per obstacle: bounding circle (centre east/north, radius) for a quick reject. */
+  circleX: Float64Array
+  circleY: Float64Array
+  circleR: Float64Array
 }
 
 /**
@@ -74,7 +83,19 @@ export function prepareObstacles(
   const seg: number[][] = [[], [], [], [], [], []]
   const pt: number[][] = [[], [], [], [], []]
   const labels: string[] = []
+  const ranges: number[][] = [[], [], [], []]
+  const circles: number[][] = [[], [], []]
   const project = (p: GeoPoint) => localOffsetM(origin.latDeg, origin.lonDeg, p.latDeg, p.lonDeg)
+  const closeObstacle = (xy: { eastM: number; northM: number }[], extraM: number) => {
+    ranges[1]!.push(seg[0]!.length)
+    ranges[3]!.push(pt[0]!.length)
+    let cx = 0
+    let cy = 0
+    for (const v of xy) (cx += v.eastM / xy.length), (cy += v.northM / xy.length)
+    let r = 0
+    for (const v of xy) r = Math.max(r, Math.hypot(v.eastM - cx, v.northM - cy))
+    circles[0]!.push(cx), circles[1]!.push(cy), circles[2]!.push(r + extraM)
+  }
   obstacles.forEach((o, idx) => {
     if (typeof o.label !== 'string') throw new TypeError(`obstacles[${idx}].label must be a string`)
     requireNonNegative(`obstacles[${idx}].heightM`, o.heightM)
@@ -82,12 +103,16 @@ export function prepareObstacles(
     requireFinite(`obstacles[${idx}].baseElevationM`, base)
     const top = base - originGroundElevationM + o.heightM
     labels.push(o.label)
+    ranges[0]!.push(seg[0]!.length)
+    ranges[2]!.push(pt[0]!.length)
     const addPoint = (x: number, y: number, r: number) => {
       pt[0]!.push(x), pt[1]!.push(y), pt[2]!.push(r), pt[3]!.push(top), pt[4]!.push(idx)
     }
     if (o.kind === 'point') {
       const p = project(o.position)
-      addPoint(p.eastM, p.northM, requireNonNegative(`obstacles[${idx}].radiusM`, o.radiusM ?? 0))
+      const r = requireNonNegative(`obstacles[${idx}].radiusM`, o.radiusM ?? 0)
+      addPoint(p.eastM, p.northM, r)
+      closeObstacle([p], r)
       return
     }
     const verts = o.kind === 'line' ? o.path : o.kind === 'polygon' ? o.ring : null
@@ -104,6 +129,7 @@ export function prepareObstacles(
     }
     // vertices catch a path that passes beside the obstacle without crossing it
     for (const v of xy) addPoint(v.eastM, v.northM, 0)
+    closeObstacle(xy, 0)
   })
   return {
     labels,
@@ -118,6 +144,13 @@ export function prepareObstacles(
     ptRadiusM: Float64Array.from(pt[2]!),
     ptTopM: Float64Array.from(pt[3]!),
     ptOwner: Int32Array.from(pt[4]!),
+    segStart: Int32Array.from(ranges[0]!),
+    segEnd: Int32Array.from(ranges[1]!),
+    ptStart: Int32Array.from(ranges[2]!),
+    ptEnd: Int32Array.from(ranges[3]!),
+    circleX: Float64Array.from(circles[0]!),
+    circleY: Float64Array.from(circles[1]!),
+    circleR: Float64Array.from(circles[2]!),
   }
 }
 
@@ -154,7 +187,7 @@ export function createClearanceScratch(): ObstacleClearanceScratch {
  * @param wavelengthMetres carrier wavelength in metres, > 0
  * @param twoKEarthRadiusM 2·k·Re in metres (bulge denominator), > 0
  * @param out scratch written with the worst obstacle
- * @returns the worst fraction (also in out.fraction); +Infinity when nothing is beside the path
+ * @returns the worst fraction (also in out.fraction); exact below 1, +Infinity when no obstacle comes within one F1 radius
  * @throws never (the caller validates once per flight)
  */
 export function worstObstacleClearance(
@@ -179,54 +212,66 @@ export function worstObstacleClearance(
   const pathM = Math.sqrt(len2)
   const dh = aircraftHeightM - groundAntennaHeightM
   const lamOverD = wavelengthMetres / pathM
-  // edges crossed by the ground track of the path: clearance straight over the crossing
-  const nSeg = prep.segX1.length
-  for (let s = 0; s < nSeg; s++) {
-    const x1 = prep.segX1[s]!
-    const y1 = prep.segY1[s]!
-    const ex = prep.segX2[s]! - x1
-    const ey = prep.segY2[s]! - y1
-    const denom = ax * ey - ay * ex
-    if (denom === 0) continue
-    const t = (x1 * ey - y1 * ex) / denom
-    if (!(t > 0 && t < 1)) continue
-    const u = (x1 * ay - y1 * ax) / denom
-    if (u < 0 || u > 1) continue
-    const d1 = t * pathM
-    const d2 = pathM - d1
-    // straight ray, parabolic bulge (ITU-R P.526 §4) and F1 radius (P.526 eq. 2)
-    const c = groundAntennaHeightM + dh * t - prep.segTopM[s]! - (d1 * d2) / twoKEarthRadiusM
-    const f1 = Math.sqrt(lamOverD * d1 * d2)
-    const f = c / f1
-    if (f < out.fraction) {
-      out.fraction = f
-      out.obstacleIndex = prep.segOwner[s]!
-      out.clearanceM = c
-      out.f1RadiusM = f1
-      out.distanceM = d1
-    }
-  }
-  // points and vertices beside the path: distance from the ray to the obstacle body
-  const nPt = prep.ptX.length
   const invLen = 1 / pathM
-  for (let p = 0; p < nPt; p++) {
-    const px = prep.ptX[p]!
-    const py = prep.ptY[p]!
-    const t = (px * ax + py * ay) / len2
-    if (!(t > 0 && t < 1)) continue
-    const gap = Math.abs(px * ay - py * ax) * invLen - prep.ptRadiusM[p]!
-    const d1 = t * pathM
-    const d2 = pathM - d1
-    const cv = groundAntennaHeightM + dh * t - prep.ptTopM[p]! - (d1 * d2) / twoKEarthRadiusM
-    const c = gap <= 0 ? cv : cv >= 0 ? Math.sqrt(gap * gap + cv * cv) : gap
-    const f1 = Math.sqrt(lamOverD * d1 * d2)
-    const f = c / f1
-    if (f < out.fraction) {
-      out.fraction = f
-      out.obstacleIndex = prep.ptOwner[p]!
-      out.clearanceM = c
-      out.f1RadiusM = f1
-      out.distanceM = d1
+  // F1 is largest at mid-path, ½√(λD): an obstacle further than that from the ground track cannot
+  // bring the fraction below 1, so its edges and vertices are skipped
+  const f1Max = 0.5 * Math.sqrt(wavelengthMetres * pathM)
+  const nObs = prep.circleR.length
+  for (let o = 0; o < nObs; o++) {
+    const cx = prep.circleX[o]!
+    const cy = prep.circleY[o]!
+    let tc = (cx * ax + cy * ay) / len2
+    tc = tc < 0 ? 0 : tc > 1 ? 1 : tc
+    const qx = cx - tc * ax
+    const qy = cy - tc * ay
+    const reach = f1Max + prep.circleR[o]!
+    if (qx * qx + qy * qy >= reach * reach) continue
+    // edges crossed by the ground track of the path: clearance straight over the crossing
+    for (let s = prep.segStart[o]!, sEnd = prep.segEnd[o]!; s < sEnd; s++) {
+      const x1 = prep.segX1[s]!
+      const y1 = prep.segY1[s]!
+      const ex = prep.segX2[s]! - x1
+      const ey = prep.segY2[s]! - y1
+      const denom = ax * ey - ay * ex
+      if (denom === 0) continue
+      const t = (x1 * ey - y1 * ex) / denom
+      if (!(t > 0 && t < 1)) continue
+      const u = (x1 * ay - y1 * ax) / denom
+      if (u < 0 || u > 1) continue
+      const d1 = t * pathM
+      const d2 = pathM - d1
+      // straight ray, parabolic bulge (ITU-R P.526 §4) and F1 radius (P.526 eq. 2)
+      const c = groundAntennaHeightM + dh * t - prep.segTopM[s]! - (d1 * d2) / twoKEarthRadiusM
+      const f1 = Math.sqrt(lamOverD * d1 * d2)
+      const f = c / f1
+      if (f < out.fraction) {
+        out.fraction = f
+        out.obstacleIndex = o
+        out.clearanceM = c
+        out.f1RadiusM = f1
+        out.distanceM = d1
+      }
+    }
+    // points and vertices beside the path: distance from the ray to the obstacle body
+    for (let p = prep.ptStart[o]!, pEnd = prep.ptEnd[o]!; p < pEnd; p++) {
+      const px = prep.ptX[p]!
+      const py = prep.ptY[p]!
+      const t = (px * ax + py * ay) / len2
+      if (!(t > 0 && t < 1)) continue
+      const gap = Math.abs(px * ay - py * ax) * invLen - prep.ptRadiusM[p]!
+      const d1 = t * pathM
+      const d2 = pathM - d1
+      const cv = groundAntennaHeightM + dh * t - prep.ptTopM[p]! - (d1 * d2) / twoKEarthRadiusM
+      const c = gap <= 0 ? cv : cv >= 0 ? Math.sqrt(gap * gap + cv * cv) : gap
+      const f1 = Math.sqrt(lamOverD * d1 * d2)
+      const f = c / f1
+      if (f < out.fraction) {
+        out.fraction = f
+        out.obstacleIndex = o
+        out.clearanceM = c
+        out.f1RadiusM = f1
+        out.distanceM = d1
+      }
     }
   }
   return out.fraction

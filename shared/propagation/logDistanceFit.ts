@@ -61,29 +61,56 @@ export function fitLogDistance(
   rxPowerDbm: Float64Array,
   options: LogDistanceFitOptions = {},
 ): LogDistanceFit {
+  const len = distanceM.length
+  const include = options.include
+  if (include && include.length !== len) throw new RangeError('include must have the same length as distanceM')
+  const log10DistanceM = new Float64Array(len)
+  for (let i = 0; i < len; i++) {
+    if (include && include[i] === 0) continue
+    const d = distanceM[i]!
+    if (!(d > 0) || !Number.isFinite(d)) throw new RangeError(`distanceM[${i}] must be > 0, got ${d}`)
+    log10DistanceM[i] = Math.log10(d)
+  }
+  return fitLogDistanceFromLog10(log10DistanceM, rxPowerDbm, options)
+}
+
+/**
+ * Same fit as {@link fitLogDistance} from precomputed log10(distance / 1 m), for callers that already hold them.
+ * @param log10DistanceM log10 of each distance in metres; used samples must be finite
+ * @param rxPowerDbm received powers in dBm, same length; used samples must be finite
+ * @param options referenceDistanceM (> 0, default 1 m), include mask, confidenceLevel (default 0.95)
+ * @returns the fit; σ uses N − 2 (residualSigmaPopulationDb gives the N form)
+ * @throws RangeError when lengths differ, a used sample is invalid, fewer than 3 samples are used, or all distances are equal
+ */
+export function fitLogDistanceFromLog10(
+  log10DistanceM: Float64Array,
+  rxPowerDbm: Float64Array,
+  options: LogDistanceFitOptions = {},
+): LogDistanceFit {
   const d0 = requirePositive('referenceDistanceM', options.referenceDistanceM ?? 1)
   const level = requireInRange('confidenceLevel', options.confidenceLevel ?? 0.95, 1e-9, 1 - 1e-9)
   const include = options.include
-  const len = distanceM.length
-  if (rxPowerDbm.length !== len) throw new RangeError('rxPowerDbm must have the same length as distanceM')
-  if (include && include.length !== len) throw new RangeError('include must have the same length as distanceM')
+  const len = log10DistanceM.length
+  if (rxPowerDbm.length !== len) throw new RangeError('rxPowerDbm must have the same length as the distances')
+  if (include && include.length !== len) throw new RangeError('include must have the same length as the distances')
+  const logD0 = Math.log10(d0)
   // pass 1: means (centred sums keep the 1e-6 agreement with a QR least-squares solver)
   let n = 0
   let sx = 0
   let sy = 0
-  let dMin = Infinity
-  let dMax = -Infinity
+  let xMin = Infinity
+  let xMax = -Infinity
   for (let i = 0; i < len; i++) {
     if (include && include[i] === 0) continue
-    const d = distanceM[i]!
+    const x = log10DistanceM[i]!
     const y = rxPowerDbm[i]!
-    if (!(d > 0) || !Number.isFinite(d)) throw new RangeError(`distanceM[${i}] must be > 0, got ${d}`)
+    if (!Number.isFinite(x)) throw new RangeError(`log10DistanceM[${i}] must be finite, got ${x}`)
     if (!Number.isFinite(y)) throw new RangeError(`rxPowerDbm[${i}] must be finite, got ${y}`)
-    sx += Math.log10(d / d0)
+    sx += x
     sy += y
     n++
-    if (d < dMin) dMin = d
-    if (d > dMax) dMax = d
+    if (x < xMin) xMin = x
+    if (x > xMax) xMax = x
   }
   if (n < 3) throw new RangeError(`fitLogDistance needs at least 3 samples, got ${n}`)
   const mx = sx / n
@@ -94,32 +121,33 @@ export function fitLogDistance(
   let syy = 0
   for (let i = 0; i < len; i++) {
     if (include && include[i] === 0) continue
-    const dx = Math.log10(distanceM[i]! / d0) - mx
+    const dx = log10DistanceM[i]! - mx
     const dy = rxPowerDbm[i]! - my
     sxx += dx * dx
     sxy += dx * dy
     syy += dy * dy
   }
-  if (!(sxx > 0)) throw new RangeError('distanceM must hold at least two different distances')
+  if (!(sxx > 0)) throw new RangeError('distances must hold at least two different values')
   // OLS normal equations (e.g. Montgomery & Runger, Applied Statistics, §11.2)
   const slope = sxy / sxx
-  const intercept = my - slope * mx
+  const interceptAt1m = my - slope * mx
   // pass 3: residuals directly, avoiding the cancellation in Syy − b·Sxy
   let ssr = 0
   for (let i = 0; i < len; i++) {
     if (include && include[i] === 0) continue
-    const r = rxPowerDbm[i]! - (intercept + slope * Math.log10(distanceM[i]! / d0))
+    const r = rxPowerDbm[i]! - (interceptAt1m + slope * log10DistanceM[i]!)
     ssr += r * r
   }
   const sigma = Math.sqrt(ssr / (n - 2))
   const seSlope = sigma / Math.sqrt(sxx)
-  const seIntercept = sigma * Math.sqrt(1 / n + (mx * mx) / sxx)
+  const mxD0 = mx - logD0
+  const seIntercept = sigma * Math.sqrt(1 / n + (mxD0 * mxD0) / sxx)
   const exponent = -slope / 10
   const seN = seSlope / 10
   // two-sided t interval with N − 2 degrees of freedom (Montgomery & Runger §11.5)
   const t = studentTQuantile(0.5 + level / 2, n - 2)
   return {
-    interceptDbm: intercept,
+    interceptDbm: interceptAt1m + slope * logD0,
     exponent,
     referenceDistanceM: d0,
     slopeDbPerDecade: slope,
@@ -132,8 +160,8 @@ export function fitLogDistance(
     confidenceLevel: level,
     exponentLower: exponent - t * seN,
     exponentUpper: exponent + t * seN,
-    minDistanceM: dMin,
-    maxDistanceM: dMax,
+    minDistanceM: 10 ** xMin,
+    maxDistanceM: 10 ** xMax,
   }
 }
 

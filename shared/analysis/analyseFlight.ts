@@ -1,0 +1,140 @@
+import { requireNonNegative, requirePositive } from '../units/guards.js'
+import { wavelengthM } from '../rf/wavelength.js'
+import { eirpDbm, freeSpaceRangeM, type LinkBudget } from '../rf/linkBudget.js'
+import { STANDARD_K_FACTOR } from '../geo/slant.js'
+import { prepareObstacles } from '../fresnel/obstacles.js'
+import { DEFAULT_FIT_SELECTION_RULE, selectFitSamples } from '../propagation/fitSelection.js'
+import { fitLogDistanceFromLog10, type LogDistanceFit } from '../propagation/logDistanceFit.js'
+import { freeSpaceModel, predictedRangeM } from '../propagation/predictions.js'
+import { detectDropouts } from '../dropouts/detect.js'
+import { classifyDropout } from '../dropouts/classify.js'
+import { validateFlightInput } from './validateInput.js'
+import { computeGeometry } from './geometryPass.js'
+import { createTerrainProbe } from './clearancePass.js'
+import { EARTH_RADIUS_M } from '../geo/slant.js'
+import { countByCause, summariseClearance, summariseDistances, summariseLink } from './summary.js'
+import { type AnalysisOptions, type FlightAnalysisOutput, type FlightInput } from './types.js'
+
+/** Version of the analysis method; stored with results so old analyses can be told apart. */
+export const METHOD_VERSION = 'ellipsoid-link/1.0.0'
+
+/**
+ * Analyses one range-test flight: distances, Fresnel clearance, dropouts with causes, log-distance fit and summary.
+ * @param input typed-array telemetry, ground station, altitude reference, radio setup, obstacles, optional terrain
+ * @param options fade margin (dB, >= 0, default 10), k-factor (> 0, default 4/3), fit/detection/classification rules
+ * @returns JSON-safe result and per-sample typed arrays
+ * @throws RangeError/TypeError naming the first invalid input field or option
+ */
+export function analyseFlight(input: FlightInput, options: AnalysisOptions = {}): FlightAnalysisOutput {
+  const antennas = validateFlightInput(input)
+  const fadeMarginDb = requireNonNegative('options.fadeMarginDb', options.fadeMarginDb ?? 10)
+  const kFactor = requirePositive('options.kFactor', options.kFactor ?? STANDARD_K_FACTOR)
+  const { samples, station, setup } = input
+  const len = samples.timeMs.length
+  const freqHz = setup.freqMHz * 1e6
+  const lambda = wavelengthM(freqHz)
+  const floorDbm = setup.floorDbm ?? null
+
+  const twoKR = 2 * kFactor * EARTH_RADIUS_M
+  const prep = prepareObstacles(input.obstacles ?? [], { latDeg: station.latDeg, lonDeg: station.lonDeg }, station.groundElevM)
+  const terrain = input.terrain ? createTerrainProbe(input.terrain, station, lambda, twoKR) : null
+  const geo = computeGeometry(input, antennas, prep, lambda, twoKR, terrain)
+
+  const detection = detectDropouts(samples.timeMs, geo.rxBestDbm, samples.lqPct, {
+    ...options.detection,
+    sensitivityDbm: setup.sensitivityDbm,
+    floorDbm,
+  })
+
+  const rule = { ...DEFAULT_FIT_SELECTION_RULE, floorDbm, ...options.fitSelection }
+  const selection = selectFitSamples(geo.distanceM, geo.rxBestDbm, rule, {
+    inDropout: detection.inDropout,
+    clearanceFraction: geo.clearanceFraction,
+  })
+  let fit: LogDistanceFit | null = null
+  let fitError: string | null = null
+  try {
+    fit = fitLogDistanceFromLog10(geo.log10DistanceM, geo.rxBestDbm, {
+      include: selection.include,
+      referenceDistanceM: options.referenceDistanceM ?? 1,
+    })
+  } catch (e) {
+    // too few usable samples is a normal outcome for a short flight: report it, fall back to free space
+    fitError = e instanceof Error ? e.message : String(e)
+  }
+  const budget: LinkBudget = {
+    txPowerDbm: setup.txPowerDbm,
+    txGainDbi: setup.txGainDbi,
+    rxGainDbi: antennas.maxGainDbi,
+    txLossDb: 0,
+    rxLossDb: setup.cableLossDb,
+    freqHz,
+  }
+  const model = fit ?? freeSpaceModel(budget)
+  const source = fit ? 'fit' : 'free-space'
+
+  // predicted margin per sample; free space does not know the pointing loss, so subtract it there
+  const predictedMarginDb = new Float64Array(len)
+  const marginDb = new Float64Array(len)
+  const tenN = 10 * model.exponent
+  const offset = model.interceptDbm + tenN * Math.log10(model.referenceDistanceM) - setup.sensitivityDbm
+  for (let i = 0; i < len; i++) {
+    predictedMarginDb[i] = offset - tenN * geo.log10DistanceM[i]! - (fit ? 0 : geo.pointingLossDb[i]!)
+    marginDb[i] = geo.rxBestDbm[i]! - setup.sensitivityDbm
+  }
+
+  const ctx = {
+    timeMs: samples.timeMs,
+    rxPowerDbm: geo.rxBestDbm,
+    distanceM: geo.distanceM,
+    heightM: geo.heightM,
+    clearanceFraction: geo.clearanceFraction,
+    limitingObstacle: geo.limitingObstacle,
+    obstacleLabels: prep.labels,
+    pointingLossDb: geo.pointingLossDb,
+    predictedMarginDb,
+    antennaHeightM: station.antennaHeightM,
+    wavelengthM: lambda,
+    sensitivityDbm: setup.sensitivityDbm,
+  }
+  const dropouts = detection.events.map((e) => classifyDropout(e, ctx, { ...options.classification, fadeMarginDb }))
+  const link = summariseLink(samples.timeMs, geo, detection.inDropout, options.detection?.maxGapMs ?? 1000)
+  const predicted = model.exponent > 0 ? predictedRangeM(model, setup.sensitivityDbm, fadeMarginDb) : NaN
+
+  return {
+    result: {
+      methodVersion: METHOD_VERSION,
+      sampleCount: len,
+      validFixCount: geo.validFixCount,
+      distances: summariseDistances(geo),
+      fit,
+      fitError,
+      fitSelection: { rule: selection.rule, includedCount: selection.includedCount, excluded: selection.excluded },
+      model: { source, interceptDbm: model.interceptDbm, exponent: model.exponent, referenceDistanceM: model.referenceDistanceM },
+      dropouts,
+      clearance: summariseClearance(geo, prep.labels),
+      summary: {
+        durationMs: len > 0 ? samples.timeMs[len - 1]! - samples.timeMs[0]! : 0,
+        distanceFlownM: geo.distanceFlownM,
+        maxDistanceWithLinkM: link.maxDistanceWithLinkM,
+        timeWithLinkMs: link.timeWithLinkMs,
+        dropoutCount: dropouts.length,
+        dropoutsByCause: countByCause(dropouts),
+        eirpDbm: eirpDbm(setup.txPowerDbm, setup.txGainDbi, 0),
+        fadeMarginDb,
+        predictedRangeM: Number.isFinite(predicted) ? predicted : null,
+        freeSpaceRangeM: freeSpaceRangeM(budget, setup.sensitivityDbm, fadeMarginDb),
+      },
+    },
+    series: {
+      distanceM: geo.distanceM,
+      slantRangeM: geo.slantRangeM,
+      heightM: geo.heightM,
+      clearanceFraction: geo.clearanceFraction,
+      marginDb,
+      predictedMarginDb,
+      rxBestDbm: new Float32Array(geo.rxBestDbm),
+      inDropout: detection.inDropout,
+    },
+  }
+}

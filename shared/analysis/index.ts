@@ -1,0 +1,6 @@
+export * from './types.js'
+export * from './analyseFlight.js'
+export * from './validateInput.js'
+export * from './geometryPass.js'
+export * from './clearancePass.js'
+export * from './summary.js'
