@@ -1,0 +1,5 @@
+export * from './palette.js'
+export * from './colourVision.js'
+export * from './censoredAdvantage.js'
+export * from './predictedAdvantage.js'
+export * from './equivalents.js'
