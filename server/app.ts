@@ -6,6 +6,7 @@ import helmet from 'helmet'
 import { pinoHttp } from 'pino-http'
 import { config } from './config.js'
 import { logger } from './logger.js'
+import { sequelize } from './db.js'
 import { apiRouter } from './routes/index.js'
 import { tilesRouter } from './routes/tiles.js'
 import { notFound } from './middleware/notFound.js'
@@ -16,6 +17,7 @@ const DIST = path.resolve('dist')
 /** Builds the Express app (no listen): security headers, API, client, 404 and the error handler. */
 export function createApp(): Express {
   const cfg = config()
+  sequelize() // models are initialised before the first request, whoever builds the app
   const app = express()
   app.disable('x-powered-by')
   app.set('trust proxy', cfg.trustProxy)

@@ -34,6 +34,7 @@ let cachedHash: string | null = null
 
 /** Empties every table (except the migration log) and restarts ids. */
 export async function resetDb(): Promise<void> {
+  sequelize()
   const { rows } = await pgPool().query<{ tablename: string }>(
     `SELECT tablename FROM pg_tables WHERE schemaname = 'public' AND tablename <> 'SequelizeMeta'`,
   )
