@@ -13,7 +13,7 @@ import { findCourseRow, getCourse } from './courses.js'
 export type TerrainSampler = (latDeg: number, lonDeg: number) => number
 
 const CACHE_MAX = 4
-const gridCache = new Map<number, ElevationGrid>()
+const gridCache = new Map<string, ElevationGrid>()
 
 function elevationRange(e: Float32Array): [number, number] {
   let lo = Infinity
@@ -86,27 +86,31 @@ export async function deleteTerrain(auth: AuthContext, courseId: number): Promis
   return getCourse(auth.teamId, courseId)
 }
 
+// Keyed by id and creation time: ids can repeat after a database restore or reset.
 async function loadGrid(terrainId: number): Promise<ElevationGrid | null> {
-  const hit = gridCache.get(terrainId)
+  const meta = await CourseTerrain.findByPk(terrainId, { attributes: { exclude: ['elevations'] } })
+  if (!meta) return null
+  const key = `${terrainId}:${meta.createdAt.getTime()}`
+  const hit = gridCache.get(key)
   if (hit) {
-    gridCache.delete(terrainId)
-    gridCache.set(terrainId, hit)
+    gridCache.delete(key)
+    gridCache.set(key, hit)
     return hit
   }
-  const t = await CourseTerrain.findByPk(terrainId)
+  const t = await CourseTerrain.findByPk(terrainId, { attributes: ['elevations'] })
   if (!t) return null
   // copy into an aligned buffer: pg's Buffer may start at an odd offset
   const bytes = new Uint8Array(t.elevations)
   const grid: ElevationGrid = {
-    width: t.width,
-    height: t.height,
-    west: t.west,
-    south: t.south,
-    east: t.east,
-    north: t.north,
-    elevationsM: new Float32Array(bytes.buffer, 0, t.width * t.height),
+    width: meta.width,
+    height: meta.height,
+    west: meta.west,
+    south: meta.south,
+    east: meta.east,
+    north: meta.north,
+    elevationsM: new Float32Array(bytes.buffer, 0, meta.width * meta.height),
   }
-  gridCache.set(terrainId, grid)
+  gridCache.set(key, grid)
   if (gridCache.size > CACHE_MAX) gridCache.delete(gridCache.keys().next().value!)
   return grid
 }
