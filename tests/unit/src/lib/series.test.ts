@@ -25,3 +25,16 @@ describe('formatElapsed', () => {
   it('writes minutes and seconds', () => expect(formatElapsed(125_400)).toBe('2:05'))
   it('writes hours when needed', () => expect(formatElapsed(3_725_000)).toBe('1:02:05'))
 })
+
+describe('distanceAxisUnit', async () => {
+  const { distanceAxisUnit, heightAxisUnit } = await import('@/lib/axisUnits')
+  it('uses km for long metric courses and m for short ones', () => {
+    expect(distanceAxisUnit(5000, 'metric').unit).toBe('km')
+    expect(distanceAxisUnit(800, 'metric')).toEqual({ unit: 'm', perMetre: 1 })
+  })
+  it('uses mi from half a mile and ft below', () => {
+    expect(distanceAxisUnit(1609.344, 'imperial').perMetre).toBeCloseTo(1 / 1609.344, 12)
+    expect(distanceAxisUnit(300, 'imperial').unit).toBe('ft')
+  })
+  it('gives heights in ft for imperial', () => expect(heightAxisUnit('imperial').unit).toBe('ft'))
+})
