@@ -8,6 +8,7 @@ import { OutgoingMail } from './OutgoingMail.js'
 import { Course } from './Course.js'
 import { CourseTerrain } from './CourseTerrain.js'
 import { LinkSetup } from './LinkSetup.js'
+import { Comparison } from './Comparison.js'
 
 /** Initialises every model and its associations; each feature adds its init call here. */
 export function initModels(sequelize: Sequelize): void {
@@ -20,6 +21,7 @@ export function initModels(sequelize: Sequelize): void {
   Course.initModel(sequelize)
   CourseTerrain.initModel(sequelize)
   LinkSetup.initModel(sequelize)
+  Comparison.initModel(sequelize)
 
   Membership.belongsTo(User, { as: 'user', foreignKey: 'userId' })
   Membership.belongsTo(Team, { as: 'team', foreignKey: 'teamId' })

@@ -10,6 +10,7 @@ import { devRouter } from './dev.js'
 import { coursesRouter } from './courses.js'
 import { setupsRouter } from './setups.js'
 import { mapConfigRouter } from './mapConfig.js'
+import { comparisonsRouter } from './comparisons.js'
 
 /** The /api router: body parsing for JSON, then one router per resource. */
 export function apiRouter(): Router {
@@ -28,5 +29,6 @@ export function apiRouter(): Router {
   api.use('/courses', coursesRouter)
   api.use('/setups', setupsRouter)
   api.use('/config', mapConfigRouter)
+  api.use('/comparisons', comparisonsRouter)
   return api
 }
