@@ -36,11 +36,16 @@ export function sampleGridBilinear(grid: ElevationGrid, latDeg: number, lonDeg: 
   const ty = fy - y0
   const e = grid.elevationsM
   const i = y0 * width + x0
-  const a = e[i]!
-  const b = e[i + 1]!
-  const c = e[i + width]!
-  const d = e[i + width + 1]!
-  return (a * (1 - tx) + b * tx) * (1 - ty) + (c * (1 - tx) + d * tx) * ty
+  // corners with zero weight are skipped, so a void next to an exact sample position does not spread
+  let sum = 0
+  const add = (w: number, v: number) => {
+    if (w > 0) sum += w * v
+  }
+  add((1 - tx) * (1 - ty), e[i]!)
+  add(tx * (1 - ty), e[i + 1]!)
+  add((1 - tx) * ty, e[i + width]!)
+  add(tx * ty, e[i + width + 1]!)
+  return sum
 }
 
 /** A sampled ground profile between two points. */

@@ -13,6 +13,8 @@ export interface NavEntry {
 
 export const NAV_ENTRIES: NavEntry[] = [
   { routeName: 'home', label: 'Overview' },
+  { routeName: 'courses', label: 'Courses' },
+  { routeName: 'setups', label: 'Link setups' },
   { routeName: 'team-members', label: 'Team members' },
   { routeName: 'account', label: 'My account' },
   { routeName: 'dev-outbox', label: 'Sent e-mail (dev)', roles: ['admin'], feature: 'devOutbox' },
