@@ -1,5 +1,6 @@
 import { config } from './config.js'
 import { startMailSink, stopMailSink } from './services/mailSink.js'
+import { flightJobsService } from './services/flights/jobs.js'
 
 /**
  * Long-lived services started beside the HTTP server (mail sink, job workers), in order;
@@ -19,6 +20,7 @@ const SERVICES: BackgroundService[] = [
     },
     stop: stopMailSink,
   },
+  flightJobsService,
 ]
 
 export async function startBackground(): Promise<void> {

@@ -9,6 +9,9 @@ import { Course } from './Course.js'
 import { CourseTerrain } from './CourseTerrain.js'
 import { LinkSetup } from './LinkSetup.js'
 import { Comparison } from './Comparison.js'
+import { Flight } from './Flight.js'
+import { FlightImport } from './FlightImport.js'
+import { ColumnMapping } from './ColumnMapping.js'
 
 /** Initialises every model and its associations; each feature adds its init call here. */
 export function initModels(sequelize: Sequelize): void {
@@ -22,6 +25,9 @@ export function initModels(sequelize: Sequelize): void {
   CourseTerrain.initModel(sequelize)
   LinkSetup.initModel(sequelize)
   Comparison.initModel(sequelize)
+  Flight.initModel(sequelize)
+  FlightImport.initModel(sequelize)
+  ColumnMapping.initModel(sequelize)
 
   Membership.belongsTo(User, { as: 'user', foreignKey: 'userId' })
   Membership.belongsTo(Team, { as: 'team', foreignKey: 'teamId' })

@@ -10,6 +10,8 @@ import { devRouter } from './dev.js'
 import { coursesRouter } from './courses.js'
 import { setupsRouter } from './setups.js'
 import { mapConfigRouter } from './mapConfig.js'
+import { flightsRouter } from './flights.js'
+import { columnMappingsRouter } from './columnMappings.js'
 import { comparisonsRouter } from './comparisons.js'
 
 /** The /api router: body parsing for JSON, then one router per resource. */
@@ -29,6 +31,8 @@ export function apiRouter(): Router {
   api.use('/courses', coursesRouter)
   api.use('/setups', setupsRouter)
   api.use('/config', mapConfigRouter)
+  api.use('/flights', flightsRouter)
+  api.use('/column-mappings', columnMappingsRouter)
   api.use('/comparisons', comparisonsRouter)
   return api
 }

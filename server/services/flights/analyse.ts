@@ -1,0 +1,69 @@
+import { analyseFlight, METHOD_VERSION } from '../../../shared/analysis/analyseFlight.js'
+import type { FlightSamples } from '../../../shared/analysis/types.js'
+import { pgPool } from '../../db.js'
+import { logger } from '../../logger.js'
+import { Course } from '../../models/Course.js'
+import { Flight } from '../../models/Flight.js'
+import { LinkSetup } from '../../models/LinkSetup.js'
+import { terrainSampler } from '../terrain.js'
+import { buildFlightInput } from './analysisInput.js'
+import { SeriesCollector } from './seriesCollector.js'
+
+const READ_BATCH = 50_000
+
+/**
+ * Reads a stored flight's samples back in seq batches into a bounded collector (re-analysis only; an import
+ * analyses the arrays it already parsed).
+ * @param flightId the flight
+ * @returns the analysis arrays
+ */
+export async function readSeries(flightId: number): Promise<FlightSamples & { thinnedBy: number }> {
+  const c = new SeriesCollector()
+  const row = { tMs: 0, lat: 0, lon: 0, altM: NaN, rssi1Dbm: NaN, rssi2Dbm: NaN, lq: NaN, snr: NaN, extras: null }
+  const n = (v: number | null) => (v === null ? NaN : v)
+  for (let from = 0; ; from += READ_BATCH) {
+    const { rows } = await pgPool().query<{ t: string; la: number; lo: number; a: number | null; r1: number | null; r2: number | null; q: number | null; s: number | null }>(
+      `SELECT t_ms AS t, lat AS la, lon AS lo, alt_m AS a, rssi1_dbm AS r1, rssi2_dbm AS r2, lq AS q, snr AS s
+         FROM samples WHERE flight_id = $1 AND seq >= $2 AND seq < $3 ORDER BY seq`,
+      [flightId, from, from + READ_BATCH],
+    )
+    for (const r of rows) {
+      row.tMs = Number(r.t)
+      row.lat = r.la
+      row.lon = r.lo
+      row.altM = n(r.a)
+      row.rssi1Dbm = n(r.r1)
+      row.rssi2Dbm = n(r.r2)
+      row.lq = n(r.q)
+      row.snr = n(r.s)
+      c.add(row)
+    }
+    if (rows.length < READ_BATCH) break
+  }
+  return c.samples()
+}
+
+/**
+ * Runs the shared analysis for a stored flight and saves the result with the method version; status ends 'ready',
+ * or 'failed' with the reason when the core refuses the input.
+ * @param flightId the flight
+ * @param samples arrays collected during the import, or undefined to read them back
+ */
+export async function analyseAndStore(flightId: number, samples?: FlightSamples & { thinnedBy: number }): Promise<void> {
+  const flight = await Flight.findByPk(flightId)
+  if (!flight) return
+  await flight.update({ status: 'analysing', failureReason: null })
+  try {
+    const [course, setup] = await Promise.all([Course.findByPk(flight.courseId), LinkSetup.findByPk(flight.setupId)])
+    if (!course || !setup) throw new Error('The flight has no course or setup')
+    const series = samples ?? (await readSeries(flightId))
+    const input = buildFlightInput(series, course, setup, await terrainSampler(course.id))
+    const { result } = analyseFlight(input)
+    const analysis = { ...result, thinnedBy: series.thinnedBy, analysedSampleCount: series.timeMs.length }
+    await flight.update({ analysis, analysisVersion: METHOD_VERSION, status: 'ready', failureReason: null })
+  } catch (e) {
+    const reason = e instanceof Error ? e.message : String(e)
+    logger.warn({ flightId, err: reason }, 'flight analysis failed')
+    await flight.update({ status: 'failed', failureReason: `Analysis failed: ${reason}` })
+  }
+}

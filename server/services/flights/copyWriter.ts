@@ -1,0 +1,79 @@
+import { once } from 'node:events'
+import { finished } from 'node:stream/promises'
+import type { Writable } from 'node:stream'
+import type { SampleRow } from '../../../shared/import/rowConverter.js'
+
+/** Column order of every COPY into samples. */
+export const SAMPLE_COPY_COLUMNS =
+  'flight_id, seq, t_ms, lat, lon, alt_m, rssi1_dbm, rssi2_dbm, lq, snr, dist_m, extras'
+
+const FLUSH_CHARS = 256 * 1024
+
+function num(v: number): string {
+  return v === v ? String(v) : '\\N'
+}
+
+/** COPY text-format escaping: backslash first, then the three characters COPY treats as separators. */
+function copyText(s: string): string {
+  return /[\\\t\n\r]/.test(s) ? s.replace(/\\/g, '\\\\').replace(/\t/g, '\\t').replace(/\n/g, '\\n').replace(/\r/g, '\\r') : s
+}
+
+/** Writes sample rows as COPY text in batches, honouring the stream's backpressure. */
+export class CopyRowWriter {
+  private parts: string[] = []
+  private chars = 0
+  private readonly prefix: string
+
+  constructor(
+    private readonly stream: Writable,
+    flightId: number,
+  ) {
+    this.prefix = `${flightId}\t`
+  }
+
+  /** Queues one row; call flush() once per input chunk. */
+  add(seq: number, r: SampleRow, distM: number): void {
+    const line =
+      this.prefix +
+      seq +
+      '\t' +
+      Math.round(r.tMs) +
+      '\t' +
+      r.lat +
+      '\t' +
+      r.lon +
+      '\t' +
+      num(r.altM) +
+      '\t' +
+      num(r.rssi1Dbm) +
+      '\t' +
+      num(r.rssi2Dbm) +
+      '\t' +
+      num(r.lq) +
+      '\t' +
+      num(r.snr) +
+      '\t' +
+      num(distM) +
+      '\t' +
+      (r.extras ? copyText(JSON.stringify(r.extras)) : '\\N') +
+      '\n'
+    this.parts.push(line)
+    this.chars += line.length
+  }
+
+  /** Writes the queued rows when enough have gathered (or always, when forced), waiting if the stream is full. */
+  async flush(force = false): Promise<void> {
+    if (!this.parts.length || (!force && this.chars < FLUSH_CHARS)) return
+    const ok = this.stream.write(this.parts.join(''))
+    this.parts = []
+    this.chars = 0
+    if (!ok) await once(this.stream, 'drain')
+  }
+
+  /** Writes the rest and ends the COPY. */
+  async end(): Promise<void> {
+    await this.flush(true)
+    this.stream.end()
+    await finished(this.stream)
+  }
+}

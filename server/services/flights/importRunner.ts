@@ -1,0 +1,149 @@
+import copyStreams from 'pg-copy-streams'
+import type pg from 'pg'
+import { config } from '../../config.js'
+import { pgPool } from '../../db.js'
+import { HttpError } from '../../errors.js'
+import { logger } from '../../logger.js'
+import { Course } from '../../models/Course.js'
+import { Flight } from '../../models/Flight.js'
+import { FlightImport } from '../../models/FlightImport.js'
+import type { ImportFailure, ImportProgress } from '../../../shared/types/flight.js'
+import type { RowReport } from '../../../shared/import/rowReport.js'
+import { analyseAndStore } from './analyse.js'
+import { CopyRowWriter, SAMPLE_COPY_COLUMNS } from './copyWriter.js'
+import { scanDelimited, type RowSink } from './delimitedScan.js'
+import { scanGpx } from './gpxScan.js'
+import { rowIssues, unprocessable } from './importErrors.js'
+import { SeriesCollector } from './seriesCollector.js'
+import { readTextChunks } from './source.js'
+import { archiveOriginal, removeFiles } from './storage.js'
+
+const PROGRESS_EVERY_MS = 500
+
+/** Writes progress at most every half second, never two writes at once, off the hot path. */
+function progressReporter(importId: number, bytesTotal: number) {
+  let last = 0
+  let busy: Promise<unknown> | null = null
+  return (bytesDone: number, rowsDone: number, force = false) => {
+    const now = Date.now()
+    if (!force && (busy || now - last < PROGRESS_EVERY_MS)) return
+    last = now
+    const progress: ImportProgress = { bytesDone, bytesTotal, rowsDone }
+    busy = FlightImport.update({ progress }, { where: { id: importId } })
+      .catch(() => undefined)
+      .finally(() => (busy = null))
+  }
+}
+
+interface ScanOutcome {
+  report: RowReport
+  collector: SeriesCollector
+}
+
+/** Parses the file and COPYs its rows on `client` (inside the caller's transaction). */
+async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course, compressed: boolean, bytesTotal: number): Promise<ScanOutcome> {
+  const copy = client.query(copyStreams.from(`COPY samples (${SAMPLE_COPY_COLUMNS}) FROM STDIN`))
+  const writer = new CopyRowWriter(copy, imp.flightId)
+  const collector = new SeriesCollector()
+  const report = progressReporter(imp.id, bytesTotal)
+  const sink: RowSink = {
+    row(seq, r, distM) {
+      writer.add(seq, r, distM)
+      collector.add(r)
+    },
+    async afterChunk(bytes, rows) {
+      await writer.flush()
+      report(bytes, rows)
+    },
+  }
+  const chunks = readTextChunks(imp.tempFile!, { compressed })
+  const station = { latDeg: course.stationLat, lonDeg: course.stationLon }
+  let rowReport: RowReport
+  if (imp.sourceFormat === 'gpx') {
+    const r = await scanGpx(chunks, { groundElevM: course.groundElevM, station }, sink)
+    if (r.report.goodRows > 0 && !r.hasSignal) {
+      throw unprocessable('The track has no signal values in its extensions; attach the signal log as a separate file')
+    }
+    rowReport = r.report
+  } else {
+    rowReport = (await scanDelimited(chunks, { mapping: imp.params.mapping!, groundElevM: course.groundElevM, station }, sink)).report
+  }
+  const maxBad = config().badRowShare
+  if (rowReport.refused(maxBad)) throw unprocessable(rowReport.refusalMessage(maxBad), rowIssues(rowReport.first))
+  await writer.end()
+  report(bytesTotal, rowReport.goodRows, true)
+  return { report: rowReport, collector }
+}
+
+/** Turns any error into the failure record kept on the import. */
+function toFailure(e: unknown): ImportFailure {
+  if (e instanceof HttpError) return { status: e.status, code: e.code, message: e.message, details: e.details }
+  logger.error({ err: e }, 'flight import failed')
+  return { status: 500, code: 'INTERNAL', message: 'The import failed unexpectedly' }
+}
+
+/**
+ * The import job: one transaction creates (or, on re-import, refills) the flight and COPYs its samples; a refused
+ * file rolls everything back and leaves only the failure on the import record. Then the analysis runs on the arrays
+ * collected while parsing, and the original is kept compressed.
+ * @param importId the import record
+ */
+export async function runImport(importId: number): Promise<void> {
+  const imp = await FlightImport.findByPk(importId)
+  if (!imp || imp.status !== 'queued' || !imp.tempFile) return
+  await imp.update({ status: 'importing' })
+  const p = imp.params
+  let client: pg.PoolClient | null = null
+  let outcome: ScanOutcome
+  const compressed = imp.params.compressed === true
+  try {
+    const course = await Course.findByPk(p.courseId)
+    if (!course) throw unprocessable('The course no longer exists')
+    const { size } = await import('node:fs/promises').then((f) => f.stat(imp.tempFile!))
+    client = await pgPool().connect()
+    await client.query('BEGIN')
+    if (imp.kind === 'create') {
+      await client.query(
+        `INSERT INTO flights (id, team_id, course_id, setup_id, created_by, name, flown_on, notes, status, mapping, source_format)
+         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, 'importing', $9, $10)`,
+        [imp.flightId, imp.teamId, p.courseId, p.setupId, imp.createdBy, p.name, p.flownOn, p.notes, JSON.stringify(p.mapping), imp.sourceFormat],
+      )
+    } else {
+      await client.query('DELETE FROM samples WHERE flight_id = $1', [imp.flightId])
+    }
+    outcome = await copyRows(client, imp, course, compressed, size)
+    await client.query(
+      `UPDATE flights SET row_count = $2, bad_row_count = $3, row_errors = $4, mapping = $5, status = 'analysing',
+         analysis = NULL, analysis_version = NULL, failure_reason = NULL, updated_at = now() WHERE id = $1`,
+      [imp.flightId, outcome.report.goodRows, outcome.report.badRows, JSON.stringify(outcome.report.toDto()), JSON.stringify(p.mapping)],
+    )
+    await client.query('COMMIT')
+    client.release()
+    client = null
+  } catch (e) {
+    // Dropping the connection aborts an open COPY and rolls the transaction back in one step.
+    client?.release(true)
+    if (imp.kind === 'create') await removeFiles(imp.tempFile)
+    await imp.update({ status: 'failed', failure: toFailure(e), tempFile: null })
+    return
+  }
+  await imp.update({ status: 'analysing' })
+  await analyseAndStore(imp.flightId, outcome.collector.samples())
+  await keepOriginal(imp, compressed)
+  const flight = await Flight.findByPk(imp.flightId, { attributes: ['status'] })
+  await imp.update({ status: flight?.status === 'failed' ? 'failed' : 'ready', tempFile: null })
+}
+
+/** Moves the upload to raw/ (compressed); a re-import's temp copy is simply removed. */
+async function keepOriginal(imp: FlightImport, compressed: boolean): Promise<void> {
+  // A re-import reads the kept original in place.
+  if (imp.kind !== 'create') return
+  try {
+    const raw = await archiveOriginal(imp.tempFile!, compressed)
+    const [n] = await Flight.update({ rawFile: raw }, { where: { id: imp.flightId } })
+    if (n === 0) await removeFiles(raw)
+  } catch (e) {
+    logger.warn({ err: (e as Error).message, flightId: imp.flightId }, 'could not keep the original log')
+    await removeFiles(imp.tempFile)
+  }
+}

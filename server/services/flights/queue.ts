@@ -1,0 +1,80 @@
+import PgBoss from 'pg-boss'
+import { config } from '../../config.js'
+import { logger } from '../../logger.js'
+import { ensureStorageDirs } from './storage.js'
+
+export const IMPORT_QUEUE = 'flight-import'
+export const ANALYSE_QUEUE = 'flight-analyse'
+/** Imports running at once in one instance; each holds one database connection for its transaction. */
+const IMPORT_WORKERS = 2
+
+let boss: PgBoss | null = null
+let starting: Promise<PgBoss> | null = null
+/** Data of a re-analysis job. */
+export interface AnalyseJob {
+  flightId: number
+  /** The course changed: recompute every sample's distance from the new station first. */
+  recomputeDistances: boolean
+}
+
+let handlers: { runImport: (id: number) => Promise<void>; analyse: (job: AnalyseJob) => Promise<void> } | null = null
+
+async function open(withWorkers: boolean): Promise<PgBoss> {
+  const b = new PgBoss({ connectionString: config().databaseUrl, max: 4, supervise: withWorkers, schedule: false })
+  // Without a listener an idle-connection error would crash the process (as with every pool).
+  b.on('error', (err) => logger.warn({ err: err.message }, 'job queue error'))
+  await b.start()
+  await b.createQueue(IMPORT_QUEUE)
+  await b.createQueue(ANALYSE_QUEUE)
+  return b
+}
+
+/**
+ * Starts the queue and this instance's workers (background service).
+ * @param h the job handlers (passed in to keep the queue free of import logic)
+ */
+export async function startFlightJobs(h: NonNullable<typeof handlers>): Promise<void> {
+  if (boss) return
+  handlers = h
+  await ensureStorageDirs()
+  starting = open(true)
+  boss = await starting
+  const opts = { pollingIntervalSeconds: config().jobPollSeconds, batchSize: 1 }
+  for (let i = 0; i < IMPORT_WORKERS; i++) {
+    await boss.work<{ importId: number }>(IMPORT_QUEUE, opts, async ([job]) => {
+      if (job) await handlers!.runImport(job.data.importId)
+    })
+  }
+  await boss.work<AnalyseJob>(ANALYSE_QUEUE, opts, async ([job]) => {
+    if (job) await handlers!.analyse(job.data)
+  })
+}
+
+/** Stops workers after their current job (bounded wait) and closes the queue's pool. */
+export async function stopFlightJobs(): Promise<void> {
+  const b = boss ?? (starting ? await starting.catch(() => null) : null)
+  boss = null
+  starting = null
+  if (b) await b.stop({ graceful: true, wait: true, timeout: 20_000 })
+}
+
+async function sender(): Promise<PgBoss> {
+  if (boss) return boss
+  // An instance that serves HTTP without workers still enqueues.
+  starting ??= open(false)
+  boss = await starting
+  return boss
+}
+
+/** Queues an import job. */
+export async function enqueueImport(importId: number): Promise<void> {
+  const id = await (await sender()).send(IMPORT_QUEUE, { importId }, { retryLimit: 0, expireInMinutes: 60 })
+  if (!id) throw new Error('The import queue refused the job')
+}
+
+/** Queues a re-analysis job. */
+export async function enqueueAnalysis(flightId: number, recomputeDistances: boolean): Promise<void> {
+  const data: AnalyseJob = { flightId, recomputeDistances }
+  const id = await (await sender()).send(ANALYSE_QUEUE, data, { retryLimit: 1, expireInMinutes: 30 })
+  if (!id) throw new Error('The analysis queue refused the job')
+}
