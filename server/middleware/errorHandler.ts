@@ -1,8 +1,10 @@
 import type { ErrorRequestHandler } from 'express'
-import { UniqueConstraintError, ValidationError } from 'sequelize'
+import { ConnectionError, UniqueConstraintError, ValidationError } from 'sequelize'
 import { ZodError } from 'zod'
 import { HttpError, badRequest } from '../errors.js'
 import { logger } from '../logger.js'
+
+const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08006', '08001'])
 
 function toHttpError(err: unknown): HttpError {
   if (err instanceof HttpError) return err
@@ -18,6 +20,10 @@ function toHttpError(err: unknown): HttpError {
     return badRequest('Invalid data', err.errors.map((e) => ({ path: e.path ?? '', message: e.message })))
   }
   const e = err as { type?: string; status?: number; code?: string }
+  // The database (or the session store on it) is unreachable or restarting: a generic, retryable 503.
+  if (err instanceof ConnectionError || DB_DOWN_CODES.has(e?.code ?? '')) {
+    return new HttpError(503, 'UNAVAILABLE', 'The service is briefly unavailable; try again shortly')
+  }
   if (e?.type === 'entity.too.large') return new HttpError(413, 'PAYLOAD_TOO_LARGE', 'Request body too large')
   if (e?.type === 'entity.parse.failed') return badRequest('Malformed JSON body')
   if (e?.code === 'LIMIT_FILE_SIZE') return new HttpError(413, 'PAYLOAD_TOO_LARGE', 'File too large')
