@@ -2,7 +2,7 @@ import Papa from 'papaparse'
 import { detectLayout, type LayoutGuess } from '@shared/import/detect'
 import { guessMapping } from '@shared/import/guessRoles'
 import { headerSignature } from '@shared/import/headerSignature'
-import type { ColumnMapping } from '@shared/import/mapping'
+import { SINGLE_ROLES, type ColumnMapping } from '@shared/import/mapping'
 
 /** How much of a log the preview reads: enough for a header and a screenful of rows. */
 export const PREVIEW_BYTES = 64 * 1024
@@ -97,4 +97,19 @@ export async function readLogHead(file: File, maxBytes = PREVIEW_BYTES): Promise
     await reader.cancel().catch(() => undefined)
   }
   return { text, complete }
+}
+
+/**
+ * Gives a column a role; a role that may be held once moves from its previous column, which
+ * becomes "keep as extra", so the mapping never holds two latitude columns.
+ */
+export function assignRole(m: ColumnMapping, index: number, role: ColumnMapping['columns'][number]['role']): ColumnMapping {
+  const single = SINGLE_ROLES.includes(role)
+  const columns = m.columns.map((c) => {
+    if (c.index === index) return { ...c, role }
+    if (single && c.role === role) return { ...c, role: 'extra' as const }
+    return c
+  })
+  const timeFormat = role === 'date' ? 'date+time' : m.timeFormat
+  return { ...m, columns, timeFormat }
 }

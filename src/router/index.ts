@@ -84,6 +84,27 @@ export const router = createRouter({
       meta: { title: 'Link setup' },
     },
     {
+      path: '/flights',
+      name: 'flights',
+      component: () => import('@/views/FlightsView.vue'),
+      props: true,
+      meta: { title: 'Flights' },
+    },
+    {
+      path: '/flights/new',
+      name: 'flight-new',
+      component: () => import('@/views/FlightUploadView.vue'),
+      props: true,
+      meta: { roles: ['admin', 'instructor', 'pilot'], title: 'New flight' },
+    },
+    {
+      path: '/flights/:flightId',
+      name: 'flight-detail',
+      component: () => import('@/views/FlightDetailView.vue'),
+      props: true,
+      meta: { title: 'Flight' },
+    },
+    {
       path: '/account',
       name: 'account',
       component: () => import('@/views/AccountView.vue'),

@@ -15,6 +15,7 @@ export const NAV_ENTRIES: NavEntry[] = [
   { routeName: 'home', label: 'Overview' },
   { routeName: 'courses', label: 'Courses' },
   { routeName: 'setups', label: 'Link setups' },
+  { routeName: 'flights', label: 'Flights' },
   { routeName: 'team-members', label: 'Team members' },
   { routeName: 'account', label: 'My account' },
   { routeName: 'dev-outbox', label: 'Sent e-mail (dev)', roles: ['admin'], feature: 'devOutbox' },

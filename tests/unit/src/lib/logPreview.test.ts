@@ -35,3 +35,18 @@ describe('proposeMapping', () => {
     expect(columnMappingSchema.safeParse(m).success).toBe(true)
   })
 })
+
+describe('assignRole', async () => {
+  const { assignRole } = await import('@/lib/logPreview')
+  const m = proposeMapping(previewFromText(SEMI, false))
+  it('moves a single role off its previous column', () => {
+    const next = assignRole(m, 5, 'rssi1')
+    expect(next.columns[5]!.role).toBe('rssi1')
+    expect(next.columns[4]!.role).toBe('extra')
+  })
+  it('lets several columns be kept as extras', () => {
+    const next = assignRole(assignRole(m, 5, 'extra'), 3, 'extra')
+    expect(next.columns.filter((c) => c.role === 'extra')).toHaveLength(2)
+  })
+  it('switches the time format when a date column is chosen', () => expect(assignRole(m, 3, 'date').timeFormat).toBe('date+time'))
+})

@@ -76,3 +76,17 @@ describe('timeWindowInBox', () => {
   it('returns null when nothing is inside', () =>
     expect(timeWindowInBox(t, lat, lon, { south: 0, north: 1, west: 0, east: 1 })).toBeNull())
 })
+
+describe('spliceWindow', async () => {
+  const { spliceWindow, emptySamples } = await import('@/lib/sampleMerge')
+  const cols = (t: number[]) => ({ ...emptySamples(), tMs: t, rssi1Dbm: t.map((x) => -x) })
+  it('replaces the overview inside the window with the detail samples', () => {
+    const merged = spliceWindow(cols([0, 100, 200, 300, 400]), cols([150, 175, 200, 225, 250]), { fromMs: 150, toMs: 250 })
+    expect(merged.tMs).toEqual([0, 100, 150, 175, 200, 225, 250, 300, 400])
+    expect(merged.rssi1Dbm).toEqual([-0, -100, -150, -175, -200, -225, -250, -300, -400])
+  })
+  it('returns the overview when there is no detail', () => {
+    const o = cols([0, 1])
+    expect(spliceWindow(o, null, null)).toBe(o)
+  })
+})

@@ -1,0 +1,3 @@
+declare module 'leaflet/dist/leaflet-src.esm' {
+  export * from 'leaflet'
+}

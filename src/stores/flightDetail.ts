@@ -1,0 +1,145 @@
+import { acceptHMRUpdate, defineStore } from 'pinia'
+import { computed, ref, shallowRef } from 'vue'
+import type { CourseDto } from '@shared/types/course'
+import type { LinkSetupDto } from '@shared/types/setup'
+import * as flightsApi from '@/api/flights'
+import type { FlightDto, SamplesDto } from '@/api/flights'
+import { getCourse } from '@/api/courses'
+import { getSetup } from '@/api/setups'
+import { planSampleRequest, pointsForWidth, type SampleRequest, type TimeWindow } from '@/lib/sampleWindow'
+import { emptySamples, spliceWindow } from '@/lib/sampleMerge'
+import { useTimelineStore } from './timeline'
+
+/** Default fade margin for predicted range, dB (common practice 10–20). */
+export const DEFAULT_FADE_MARGIN_DB = 10
+
+/**
+ * The flight screen's data: the flight with its analysis, its course and setup, an overview of the
+ * samples and at most one finer window spliced in when the user zooms (a chart or the map).
+ */
+export const useFlightDetailStore = defineStore('flightDetail', () => {
+  const flight = ref<FlightDto | null>(null)
+  const course = ref<CourseDto | null>(null)
+  const setup = ref<LinkSetupDto | null>(null)
+  // large arrays: shallow, they are replaced whole and never mutated
+  const overview = shallowRef<SamplesDto>(emptySamples())
+  const detail = shallowRef<SamplesDto | null>(null)
+  const detailRequest = ref<SampleRequest | null>(null)
+  const overviewRequest = ref<SampleRequest | null>(null)
+  const loading = ref(false)
+  const refining = ref(false)
+  const fadeMarginDb = ref(DEFAULT_FADE_MARGIN_DB)
+  const selectedDropout = ref<number | null>(null)
+  /** Guards against a slow response overwriting a newer one. */
+  let requestSeq = 0
+
+  const span = computed<TimeWindow>(() => {
+    const t = overview.value.tMs
+    const dur = flight.value?.analysis?.summary.durationMs
+    return { fromMs: t[0] ?? 0, toMs: Math.max(t[t.length - 1] ?? 0, dur ?? 0) }
+  })
+  const samples = computed(() =>
+    spliceWindow(overview.value, detail.value, detailRequest.value),
+  )
+  const dropouts = computed(() => flight.value?.analysis?.dropouts ?? [])
+
+  /** Loads everything the screen needs and puts the timeline at the start. */
+  async function load(id: number, widthPx: number): Promise<void> {
+    loading.value = true
+    const seq = ++requestSeq
+    try {
+      const f = await flightsApi.getFlight(id)
+      const durationMs = f.analysis?.summary.durationMs ?? 0
+      const req: SampleRequest = { fromMs: 0, toMs: Math.max(1, durationMs), maxPoints: pointsForWidth(widthPx) }
+      const [c, s, o] = await Promise.all([
+        getCourse(f.courseId),
+        getSetup(f.setupId),
+        flightsApi.getSamples(id, req.fromMs, req.toMs, req.maxPoints),
+      ])
+      if (seq !== requestSeq) return
+      flight.value = f
+      course.value = c
+      setup.value = s
+      overview.value = o
+      overviewRequest.value = req
+      detail.value = null
+      detailRequest.value = null
+      selectedDropout.value = null
+      useTimelineStore().reset(span.value.fromMs, span.value.toMs)
+    } finally {
+      if (seq === requestSeq) loading.value = false
+    }
+  }
+
+  /**
+   * Asks for finer samples when the view (a chart's zoom or the map's box) got narrower than the
+   * loaded data can show; null view means "back to the whole flight".
+   */
+  async function refine(view: TimeWindow | null, widthPx: number): Promise<void> {
+    const id = flight.value?.id
+    if (id === undefined) return
+    if (!view) {
+      detail.value = null
+      detailRequest.value = null
+      return
+    }
+    const loaded = detailRequest.value ?? overviewRequest.value
+    const loadedCount = detailRequest.value ? (detail.value?.tMs.length ?? 0) : overview.value.tMs.length
+    const req = planSampleRequest(view, widthPx, loaded, span.value, loadedCount)
+    if (!req) return
+    const seq = ++requestSeq
+    refining.value = true
+    try {
+      const d = await flightsApi.getSamples(id, req.fromMs, req.toMs, req.maxPoints)
+      if (seq !== requestSeq) return
+      detail.value = d
+      detailRequest.value = req
+    } finally {
+      if (seq === requestSeq) refining.value = false
+    }
+  }
+
+  /** Moves the timeline to a dropout's start and remembers it as the chosen one. */
+  function selectDropout(index: number): void {
+    const d = dropouts.value[index]
+    if (!d) return
+    selectedDropout.value = index
+    useTimelineStore().seek(d.startMs)
+  }
+
+  /** Queues a fresh analysis (e.g. after the course changed); the screen shows the status it answers. */
+  async function reanalyse(): Promise<void> {
+    const f = flight.value
+    if (!f) return
+    const st = await flightsApi.reanalyseFlight(f.id)
+    flight.value = { ...f, status: st.status }
+  }
+
+  function setFadeMargin(db: number): void {
+    if (Number.isFinite(db) && db >= 0 && db <= 40) fadeMarginDb.value = db
+  }
+
+  return {
+    flight,
+    course,
+    setup,
+    overview,
+    detail,
+    detailRequest,
+    overviewRequest,
+    loading,
+    refining,
+    fadeMarginDb,
+    selectedDropout,
+    span,
+    samples,
+    dropouts,
+    load,
+    refine,
+    selectDropout,
+    reanalyse,
+    setFadeMargin,
+  }
+})
+
+if (import.meta.hot) import.meta.hot.accept(acceptHMRUpdate(useFlightDetailStore, import.meta.hot))
