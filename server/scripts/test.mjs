@@ -53,7 +53,7 @@ try {
   await step('type-check client (vue-tsc)', bin('vue-tsc'), ['--noEmit', '-p', 'tsconfig.app.json'])
   await step('type-check server (tsc)', bin('tsc'), ['--noEmit', '-p', 'server'])
   await step('type-check shared (tsc)', bin('tsc'), ['--noEmit', '-p', 'shared'])
-  await step('type-check browser suite (tsc)', bin('tsc'), ['--noEmit', '-p', 'tests/e2e'])
+  await step('type-check shared and browser tests (tsc)', bin('tsc'), ['--noEmit', '-p', 'tests'])
   const unitJson = path.join(resultsDir, 'unit-api.json')
   await step('unit, reference and API tests (vitest)', bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${unitJson}`], unitJson)
   say('── building the client for the browser suite')
