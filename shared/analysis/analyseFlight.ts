@@ -12,7 +12,7 @@ import { validateFlightInput } from './validateInput.js'
 import { computeGeometry } from './geometryPass.js'
 import { createTerrainProbe } from './clearancePass.js'
 import { EARTH_RADIUS_M } from '../geo/slant.js'
-import { countByCause, summariseClearance, summariseDistances, summariseLink } from './summary.js'
+import { countByCause, summariseClearance, summariseDistances } from './summary.js'
 import { type AnalysisOptions, type FlightAnalysisOutput, type FlightInput } from './types.js'
 
 /** Version of the analysis method; stored with results so old analyses can be told apart. */
@@ -73,14 +73,31 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   const model = fit ?? freeSpaceModel(budget)
   const source = fit ? 'fit' : 'free-space'
 
-  // predicted margin per sample; free space does not know the pointing loss, so subtract it there
-  const predictedMarginDb = new Float64Array(len)
-  const marginDb = new Float64Array(len)
+  // predicted margin per sample; free space does not know the pointing loss, so subtract it there.
+  // The same pass collects time with link and the furthest distance with link held.
+  const predictedMarginDb = new Float32Array(len)
+  const marginDb = new Float32Array(len)
   const tenN = 10 * model.exponent
   const offset = model.interceptDbm + tenN * Math.log10(model.referenceDistanceM) - setup.sensitivityDbm
+  const pointingWeight = fit ? 0 : 1
+  const maxGapMs = options.detection?.maxGapMs ?? 1000
+  const { log10DistanceM, pointingLossDb, rxBestDbm, distanceM } = geo
+  const { inDropout } = detection
+  const timeMs = samples.timeMs
+  let timeWithLinkMs = 0
+  let maxDistanceWithLinkM = -Infinity
   for (let i = 0; i < len; i++) {
-    predictedMarginDb[i] = offset - tenN * geo.log10DistanceM[i]! - (fit ? 0 : geo.pointingLossDb[i]!)
-    marginDb[i] = geo.rxBestDbm[i]! - setup.sensitivityDbm
+    predictedMarginDb[i] = offset - tenN * log10DistanceM[i]! - pointingWeight * pointingLossDb[i]!
+    const p = rxBestDbm[i]!
+    marginDb[i] = p - setup.sensitivityDbm
+    if (inDropout[i] === 0) {
+      const d = distanceM[i]!
+      if (d > maxDistanceWithLinkM && p === p) maxDistanceWithLinkM = d
+      if (i > 0 && inDropout[i - 1] === 0) {
+        const dt = timeMs[i]! - timeMs[i - 1]!
+        if (dt <= maxGapMs) timeWithLinkMs += dt
+      }
+    }
   }
 
   const ctx = {
@@ -98,7 +115,6 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
     sensitivityDbm: setup.sensitivityDbm,
   }
   const dropouts = detection.events.map((e) => classifyDropout(e, ctx, { ...options.classification, fadeMarginDb }))
-  const link = summariseLink(samples.timeMs, geo, detection.inDropout, options.detection?.maxGapMs ?? 1000)
   const predicted = model.exponent > 0 ? predictedRangeM(model, setup.sensitivityDbm, fadeMarginDb) : NaN
 
   return {
@@ -116,8 +132,8 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
       summary: {
         durationMs: len > 0 ? samples.timeMs[len - 1]! - samples.timeMs[0]! : 0,
         distanceFlownM: geo.distanceFlownM,
-        maxDistanceWithLinkM: link.maxDistanceWithLinkM,
-        timeWithLinkMs: link.timeWithLinkMs,
+        maxDistanceWithLinkM: Number.isFinite(maxDistanceWithLinkM) ? maxDistanceWithLinkM : null,
+        timeWithLinkMs,
         dropoutCount: dropouts.length,
         dropoutsByCause: countByCause(dropouts),
         eirpDbm: eirpDbm(setup.txPowerDbm, setup.txGainDbi, 0),
@@ -128,12 +144,11 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
     },
     series: {
       distanceM: geo.distanceM,
-      slantRangeM: geo.slantRangeM,
       heightM: geo.heightM,
       clearanceFraction: geo.clearanceFraction,
       marginDb,
       predictedMarginDb,
-      rxBestDbm: new Float32Array(geo.rxBestDbm),
+      rxBestDbm: geo.rxBestDbm,
       inDropout: detection.inDropout,
     },
   }

@@ -1,7 +1,9 @@
-import { WGS84_A_M, WGS84_E2 } from '../geo/wgs84.js'
+import { createLocalProjection } from '../geo/localProjection.js'
+import { fastLog10 } from '../stats/fastLog10.js'
 import { DEFAULT_MAX_ATTENUATION_DB } from '../antenna/pattern.js'
 import { createClearanceScratch, type PreparedObstacles, worstObstacleClearance } from '../fresnel/obstacles.js'
 import { groundClearanceFraction } from '../fresnel/groundClearance.js'
+import { REQUIRED_CLEARANCE_FRACTION } from '../fresnel/zone.js'
 import { type ResolvedAntennas } from './validateInput.js'
 import { CLEARANCE_FRACTION_CAP, LIMITING_GROUND, LIMITING_NONE, LIMITING_TERRAIN, type TerrainProbe } from './clearancePass.js'
 import { type FlightInput } from './types.js'
@@ -11,21 +13,44 @@ export interface FlightGeometry {
   distanceM: Float64Array
   /** log10 of the ground distance in metres (for the fit and predictions). */
   log10DistanceM: Float64Array
+  /** Height above the station ground, m (the altM array itself when altitudes are AGL). */
   heightM: Float64Array
-  slantRangeM: Float64Array
-  pointingLossDb: Float64Array
+  /** Gain lost to pointing against the best boresight gain, dB (all 0 without directional antennas). */
+  pointingLossDb: Float32Array
+  /** Best diversity antenna, dBm (the rssiDbm array itself without a second antenna). */
   rxBestDbm: Float64Array
   /** Worst F1 clearance fraction, capped at CLEARANCE_FRACTION_CAP; NaN without a fix. */
-  clearanceFraction: Float64Array
+  clearanceFraction: Float32Array
   /** LIMITING_* code or obstacle index of the worst clearance. */
-  limitingObstacle: Int32Array
+  limitingObstacle: Int16Array
   validFixCount: number
   /** 3-D length of the track over consecutive fixes, m. */
   distanceFlownM: number
+  /** Largest straight-line range from the antenna, m (NaN without fixes). */
+  maxSlantRangeM: number
+  /** Extremes over samples with a fix (±Infinity when none). */
+  minDistanceM: number
+  maxDistanceM: number
+  maxHeightM: number
+  minClearanceFraction: number
+  /** Samples with a clearance fraction below the 60 % rule, by limiting code + 3 (index 0 = none, 1 = terrain, 2 = ground, 3.. = obstacles). */
+  belowRuleByCode: Int32Array
+  /** Samples with a clearance fraction (fix and altitude present). */
+  clearanceSampleCount: number
 }
 
 const DEG = Math.PI / 180
 const RAD_TO_DEG = 180 / Math.PI
+
+// arccos for the pattern loop: Abramowitz & Stegun 4.4.46, |error| <= 2e-8 rad (1e-6°), no libm call
+function arcCosine(x: number): number {
+  const a = x < 0 ? -x : x
+  const p =
+    1.5707963050 +
+    a * (-0.2145988016 + a * (0.0889789874 + a * (-0.0501743046 + a * (0.0308918810 + a * (-0.0170881256 + a * (0.0066700901 + a * -0.0012624911))))))
+  const r = Math.sqrt(1 - a) * p
+  return x < 0 ? Math.PI - r : r
+}
 
 /**
  * One fused pass over the samples: local offsets, distance, height, slant range, pointing loss, best-antenna power and clearance.
@@ -50,59 +75,81 @@ export function computeGeometry(
   const len = s.timeMs.length
   const distanceM = new Float64Array(len)
   const log10DistanceM = new Float64Array(len)
-  const heightM = new Float64Array(len)
-  const slantRangeM = new Float64Array(len)
-  const pointingLossDb = new Float64Array(len)
-  const rxBestDbm = new Float64Array(len)
-  const clearanceFraction = new Float64Array(len)
-  const limitingObstacle = new Int32Array(len)
-  const datumOffset = input.altitudeReference === 'AMSL' ? station.groundElevM : 0
+  const amsl = input.altitudeReference === 'AMSL'
+  const altM = s.altM
+  const heightM = amsl ? new Float64Array(len) : altM
+  const pointingLossDb = new Float32Array(len)
+  const r1 = s.rssiDbm
+  const r2 = s.rssi2Dbm
+  const rxBestDbm = r2 ? new Float64Array(len) : r1
+  const clearanceFraction = new Float32Array(len)
+  const limitingObstacle = new Int16Array(len)
+  const latDeg = s.latDeg
+  const lonDeg = s.lonDeg
+  const datumOffset = amsl ? station.groundElevM : 0
   const hAnt = station.antennaHeightM
   const lat0 = station.latDeg
   const lon0 = station.lonDeg
-  const r1 = s.rssiDbm
-  const r2 = s.rssi2Dbm
   const nAnt = antennas.count
+  const anyDirectional = antennas.anyDirectional
+  const { gainDbi, directional, beamwidthDeg, bx, by, bz, maxGainDbi } = antennas
+  // beyond 1.29 beamwidths the parabola is floored at A_m, so acos is needed only inside that cone
+  const cosFloor = new Float64Array(nAnt)
+  for (let k = 0; k < nAnt; k++) {
+    const satDeg = beamwidthDeg[k]! * Math.sqrt(DEFAULT_MAX_ATTENUATION_DB / 12)
+    cosFloor[k] = satDeg >= 180 ? -2 : Math.cos(satDeg * DEG)
+  }
   const hasObstacles = prep.circleR.length > 0
   const scratch = createClearanceScratch()
-  const ae2 = 1 - WGS84_E2
+  const proj = createLocalProjection(lat0, lon0)
+  const { east0, east1, east2, north0, north1, north2 } = proj
   let valid = 0
   let flown = 0
+  let minD = Infinity
+  let maxD = -Infinity
+  let maxH = -Infinity
+  let minClear = Infinity
+  let clearCount = 0
+  const belowRuleByCode = new Int32Array(prep.labels.length + 3)
+  let maxSlant = -Infinity
   let pe = NaN
   let pn = NaN
   let ph = NaN
   for (let i = 0; i < len; i++) {
-    const lat = s.latDeg[i]!
-    const lon = s.lonDeg[i]!
-    const h = s.altM[i]! - datumOffset
-    heightM[i] = h
-    const a = r1[i]!
-    const b = r2 ? r2[i]! : NaN
-    // diversity: the receiver uses the stronger antenna; NaN > x is false, so a missing one is skipped
-    rxBestDbm[i] = b > a || a !== a ? b : a
+    const lat = latDeg[i]!
+    const lon = lonDeg[i]!
+    const h = altM[i]! - datumOffset
+    if (amsl) heightM[i] = h
+    if (r2) {
+      const a = r1[i]!
+      const b = r2[i]!
+      // diversity: the receiver uses the stronger antenna; NaN > x is false, so a missing one is skipped
+      rxBestDbm[i] = b > a || a !== a ? b : a
+    }
     // a 0,0 fix is the GPS's "no fix yet" frame, not a position in the Gulf of Guinea
     if (!(lat === lat && lon === lon) || (lat === 0 && lon === 0)) {
-      distanceM[i] = log10DistanceM[i] = slantRangeM[i] = clearanceFraction[i] = NaN
+      distanceM[i] = log10DistanceM[i] = clearanceFraction[i] = NaN
       limitingObstacle[i] = LIMITING_NONE
       continue
     }
     valid++
-    // mid-latitude WGS-84 plane, as in geo/localOffset.ts (error O((d/R)²))
-    const mid = (lat0 + lat) * (DEG / 2)
-    const sm = Math.sin(mid)
-    const w = 1 - WGS84_E2 * sm * sm
-    const nRad = WGS84_A_M / Math.sqrt(w)
+    // flight-wide local plane (geo/localProjection.ts): mid-latitude WGS-84 scales as a series in Δlat
+    const dLat = lat - lat0
     let dLon = lon - lon0
     if (dLon > 180) dLon -= 360
     else if (dLon < -180) dLon += 360
-    const e = dLon * DEG * nRad * Math.cos(mid)
-    const no = (lat - lat0) * DEG * ((nRad * ae2) / w)
-    const d = Math.sqrt(e * e + no * no)
+    const e = dLon * (east0 + dLat * (east1 + dLat * east2))
+    const no = dLat * (north0 + dLat * (north1 + dLat * north2))
+    const d2 = e * e + no * no
+    const d = Math.sqrt(d2)
     distanceM[i] = d
-    log10DistanceM[i] = Math.log10(d)
+    if (d < minD) minD = d
+    if (d > maxD) maxD = d
+    if (h > maxH) maxH = h
+    log10DistanceM[i] = fastLog10(d)
     const up = h - hAnt
-    const slant = Math.sqrt(d * d + up * up)
-    slantRangeM[i] = slant
+    const slant2 = d2 + up * up
+    if (slant2 > maxSlant) maxSlant = slant2
     if (pe === pe) {
       const dh = h - ph
       flown += Math.sqrt((e - pe) * (e - pe) + (no - pn) * (no - pn) + (dh === dh ? dh * dh : 0))
@@ -110,22 +157,24 @@ export function computeGeometry(
     pe = e
     pn = no
     ph = h
-    if (antennas.anyDirectional && slant > 0) {
-      const inv = 1 / slant
+    if (anyDirectional && slant2 > 0) {
+      const inv = 1 / Math.sqrt(slant2)
       let best = -Infinity
       for (let k = 0; k < nAnt; k++) {
-        let g = antennas.gainDbi[k]!
-        if (antennas.directional[k] === 1) {
-          let c = (e * antennas.bx[k]! + no * antennas.by[k]! + up * antennas.bz[k]!) * inv
-          c = c > 1 ? 1 : c < -1 ? -1 : c
-          const r = (Math.acos(c) * RAD_TO_DEG) / antennas.beamwidthDeg[k]!
-          // 3GPP TR 36.942 §4.2.1.1 parabolic main lobe, floored at A_m
-          const att = 12 * r * r
-          g -= att < DEFAULT_MAX_ATTENUATION_DB ? att : DEFAULT_MAX_ATTENUATION_DB
+        let g = gainDbi[k]!
+        if (directional[k] === 1) {
+          const c = (e * bx[k]! + no * by[k]! + up * bz[k]!) * inv
+          if (c <= cosFloor[k]!) g -= DEFAULT_MAX_ATTENUATION_DB
+          else {
+            const r = (arcCosine(c > 1 ? 1 : c) * RAD_TO_DEG) / beamwidthDeg[k]!
+            // 3GPP TR 36.942 §4.2.1.1 parabolic main lobe, floored at A_m
+            const att = 12 * r * r
+            g -= att < DEFAULT_MAX_ATTENUATION_DB ? att : DEFAULT_MAX_ATTENUATION_DB
+          }
         }
         if (g > best) best = g
       }
-      pointingLossDb[i] = best === best ? antennas.maxGainDbi - best : NaN
+      pointingLossDb[i] = best === best ? maxGainDbi - best : NaN
     }
     let worst = groundClearanceFraction(d, hAnt, h, wavelengthMetres, twoKEarthRadiusM)
     let limiting = LIMITING_GROUND
@@ -140,17 +189,29 @@ export function computeGeometry(
     // NaN (no altitude) stays NaN rather than reading as clear
     clearanceFraction[i] = worst !== worst ? NaN : worst < CLEARANCE_FRACTION_CAP ? worst : CLEARANCE_FRACTION_CAP
     limitingObstacle[i] = worst < CLEARANCE_FRACTION_CAP ? limiting : LIMITING_NONE
+    if (worst === worst) {
+      clearCount++
+      if (worst < minClear) minClear = worst
+      // common practice, no source: the 60 % first-zone rule
+      if (worst < REQUIRED_CLEARANCE_FRACTION) belowRuleByCode[limiting + 3]!++
+    }
   }
   return {
     distanceM,
     log10DistanceM,
     heightM,
-    slantRangeM,
     pointingLossDb,
     rxBestDbm,
     clearanceFraction,
     limitingObstacle,
     validFixCount: valid,
     distanceFlownM: flown,
+    maxSlantRangeM: maxSlant >= 0 ? Math.sqrt(maxSlant) : NaN,
+    minDistanceM: minD,
+    maxDistanceM: maxD,
+    maxHeightM: maxH,
+    minClearanceFraction: minClear < CLEARANCE_FRACTION_CAP ? minClear : CLEARANCE_FRACTION_CAP,
+    belowRuleByCode,
+    clearanceSampleCount: clearCount,
   }
 }

@@ -97,18 +97,16 @@ export interface AnalysisOptions {
 export interface FlightSeries {
   /** Ground distance from the station, m (NaN without a fix). */
   distanceM: Float64Array
-  /** Straight-line range from the antenna, m. */
-  slantRangeM: Float64Array
-  /** Aircraft height above the station ground, m. */
+  /** Aircraft height above the station ground, m (the input altM array when altitudes are AGL). */
   heightM: Float64Array
-  /** Worst first-Fresnel-zone clearance fraction (ground, terrain, obstacles). */
-  clearanceFraction: Float64Array
+  /** Worst first-Fresnel-zone clearance fraction (ground, terrain, obstacles), capped at 1 (zone wholly clear). */
+  clearanceFraction: Float32Array
   /** Measured margin: best-antenna power minus sensitivity, dB (NaN when not logged). */
-  marginDb: Float64Array
+  marginDb: Float32Array
   /** Model-predicted margin, dB. */
-  predictedMarginDb: Float64Array
-  /** Best of the diversity antennas, dBm. */
-  rxBestDbm: Float32Array
+  predictedMarginDb: Float32Array
+  /** Best of the diversity antennas, dBm (the input rssiDbm array without a second antenna). */
+  rxBestDbm: Float64Array
   /** 1 inside a dropout. */
   inDropout: Uint8Array
 }

@@ -26,14 +26,14 @@ export interface DropoutContext {
   /** Aircraft height above the station's ground, m. */
   heightM: Float64Array
   /** Worst F1 clearance fraction (ground, terrain, obstacles). */
-  clearanceFraction: Float64Array
+  clearanceFraction: Float64Array | Float32Array
   /** Index of the limiting obstacle (−1 ground, −2 terrain, >= 0 into obstacleLabels). */
-  limitingObstacle: Int32Array
+  limitingObstacle: Int32Array | Int16Array
   obstacleLabels: readonly string[]
   /** Gain lost to antenna pointing against the best boresight gain, dB (>= 0). */
-  pointingLossDb: Float64Array
+  pointingLossDb: Float64Array | Float32Array
   /** Model-predicted margin above sensitivity, dB. */
-  predictedMarginDb: Float64Array
+  predictedMarginDb: Float64Array | Float32Array
   /** Ground antenna height above its ground, m. */
   antennaHeightM: number
   wavelengthM: number

@@ -66,37 +66,37 @@ export function detectDropouts(
   const minDur = requireNonNegative('minDurationMs', options.minDurationMs ?? 0)
   const mergeWithin = requireNonNegative('mergeWithinMs', options.mergeWithinMs ?? 1000)
   const raw: DetectedDropout[] = []
-  let open: DetectedDropout | null = null
+  const lq = linkQualityPct ?? null
+  // the open run of lost samples lives in locals; an object is made only when it closes
+  let runStart = -1
+  let runEnd = -1
+  let runSignal = false
+  let runLq = false
+  let prev = -Infinity
   for (let i = 0; i < len; i++) {
     const t = timeMs[i]!
-    if (!Number.isFinite(t)) throw new RangeError(`timeMs[${i}] must be finite, got ${t}`)
-    if (i > 0) {
-      const prev = timeMs[i - 1]!
-      if (t < prev) throw new RangeError(`timeMs must be non-decreasing, timeMs[${i}] < timeMs[${i - 1}]`)
-      if (t - prev > maxGap) {
-        raw.push(event(i - 1, i, prev, t, false, false, true))
-      }
+    // one test for NaN, ±Infinity and time going backwards (t − t is 0 only for finite t)
+    if (!(t >= prev && t - t === 0)) {
+      throw new RangeError(`timeMs must be finite and non-decreasing, got timeMs[${i}] = ${t}`)
     }
+    if (t - prev > maxGap && i > 0) raw.push(event(i - 1, i, prev, t, false, false, true))
+    prev = t
     const p = rxPowerDbm[i]!
     const weak = p < sens || p <= floor
-    const q = linkQualityPct ? linkQualityPct[i]! : NaN
-    const poorLq = q < minLq
+    const poorLq = lq !== null && lq[i]! < minLq
     if (weak || poorLq) {
-      if (open === null) open = event(i, i, t, t, weak, poorLq, false)
-      else {
-        open.endIndex = i
-        open.fromSignal ||= weak
-        open.fromLinkQuality ||= poorLq
-      }
-      open.endMs = t
-    } else if (open !== null) {
+      if (runStart < 0) runStart = i
+      runEnd = i
+      if (weak) runSignal = true
+      if (poorLq) runLq = true
+    } else if (runStart >= 0) {
       // the link is back at this sample: the event lasted until now
-      open.endMs = t
-      raw.push(open)
-      open = null
+      raw.push(event(runStart, runEnd, timeMs[runStart]!, t, runSignal, runLq, false))
+      runStart = -1
+      runSignal = runLq = false
     }
   }
-  if (open !== null) raw.push(open)
+  if (runStart >= 0) raw.push(event(runStart, runEnd, timeMs[runStart]!, timeMs[runEnd]!, runSignal, runLq, false))
   raw.sort((a, b) => a.startMs - b.startMs || a.startIndex - b.startIndex)
   const events: DetectedDropout[] = []
   for (const e of raw) {

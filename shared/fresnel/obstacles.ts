@@ -1,5 +1,5 @@
 import { requireFinite, requireInRange, requireNonNegative } from '../units/guards.js'
-import { localOffsetM } from '../geo/localOffset.js'
+import { createLocalProjection, projectToLocal } from '../geo/localProjection.js'
 
 /** A geographic position in degrees. */
 export interface GeoPoint {
@@ -67,7 +67,7 @@ export interface PreparedObstacles {
 }
 
 /**
- * Projects obstacles to east/north metres around the station (mid-latitude WGS-84 plane) for fast path tests.
+ * Projects obstacles to east/north metres around the station (geo/localProjection plane) for fast path tests.
  * @param obstacles points, lines (>= 2 vertices) and polygons (>= 3 vertices), heights in metres >= 0
  * @param origin ground station position in degrees
  * @param originGroundElevationM station ground elevation above mean sea level in metres, finite (the datum)
@@ -85,7 +85,9 @@ export function prepareObstacles(
   const labels: string[] = []
   const ranges: number[][] = [[], [], [], []]
   const circles: number[][] = [[], [], []]
-  const project = (p: GeoPoint) => localOffsetM(origin.latDeg, origin.lonDeg, p.latDeg, p.lonDeg)
+  // the same flight-wide plane as the per-sample pass, so paths and obstacles agree
+  const proj = createLocalProjection(origin.latDeg, origin.lonDeg)
+  const project = (p: GeoPoint) => projectToLocal(proj, p.latDeg, p.lonDeg)
   const closeObstacle = (xy: { eastM: number; northM: number }[], extraM: number) => {
     ranges[1]!.push(seg[0]!.length)
     ranges[3]!.push(pt[0]!.length)
@@ -213,25 +215,28 @@ export function worstObstacleClearance(
   const dh = aircraftHeightM - groundAntennaHeightM
   const lamOverD = wavelengthMetres / pathM
   const invLen = 1 / pathM
+  const invLen2 = invLen * invLen
   // F1 is largest at mid-path, ½√(λD): an obstacle further than that from the ground track cannot
   // bring the fraction below 1, so its edges and vertices are skipped
   const f1Max = 0.5 * Math.sqrt(wavelengthMetres * pathM)
-  const nObs = prep.circleR.length
+  const { circleX, circleY, circleR, segStart, segEnd, ptStart, ptEnd } = prep
+  const { segX1, segY1, segX2, segY2, segTopM, ptX, ptY, ptRadiusM, ptTopM } = prep
+  const nObs = circleR.length
   for (let o = 0; o < nObs; o++) {
-    const cx = prep.circleX[o]!
-    const cy = prep.circleY[o]!
+    const cx = circleX[o]!
+    const cy = circleY[o]!
     let tc = (cx * ax + cy * ay) / len2
     tc = tc < 0 ? 0 : tc > 1 ? 1 : tc
     const qx = cx - tc * ax
     const qy = cy - tc * ay
-    const reach = f1Max + prep.circleR[o]!
+    const reach = f1Max + circleR[o]!
     if (qx * qx + qy * qy >= reach * reach) continue
     // edges crossed by the ground track of the path: clearance straight over the crossing
-    for (let s = prep.segStart[o]!, sEnd = prep.segEnd[o]!; s < sEnd; s++) {
-      const x1 = prep.segX1[s]!
-      const y1 = prep.segY1[s]!
-      const ex = prep.segX2[s]! - x1
-      const ey = prep.segY2[s]! - y1
+    for (let s = segStart[o]!, sEnd = segEnd[o]!; s < sEnd; s++) {
+      const x1 = segX1[s]!
+      const y1 = segY1[s]!
+      const ex = segX2[s]! - x1
+      const ey = segY2[s]! - y1
       const denom = ax * ey - ay * ex
       if (denom === 0) continue
       const t = (x1 * ey - y1 * ex) / denom
@@ -241,7 +246,7 @@ export function worstObstacleClearance(
       const d1 = t * pathM
       const d2 = pathM - d1
       // straight ray, parabolic bulge (ITU-R P.526 §4) and F1 radius (P.526 eq. 2)
-      const c = groundAntennaHeightM + dh * t - prep.segTopM[s]! - (d1 * d2) / twoKEarthRadiusM
+      const c = groundAntennaHeightM + dh * t - segTopM[s]! - (d1 * d2) / twoKEarthRadiusM
       const f1 = Math.sqrt(lamOverD * d1 * d2)
       const f = c / f1
       if (f < out.fraction) {
@@ -253,15 +258,17 @@ export function worstObstacleClearance(
       }
     }
     // points and vertices beside the path: distance from the ray to the obstacle body
-    for (let p = prep.ptStart[o]!, pEnd = prep.ptEnd[o]!; p < pEnd; p++) {
-      const px = prep.ptX[p]!
-      const py = prep.ptY[p]!
-      const t = (px * ax + py * ay) / len2
+    for (let p = ptStart[o]!, pEnd = ptEnd[o]!; p < pEnd; p++) {
+      const px = ptX[p]!
+      const py = ptY[p]!
+      const t = (px * ax + py * ay) * invLen2
       if (!(t > 0 && t < 1)) continue
-      const gap = Math.abs(px * ay - py * ax) * invLen - prep.ptRadiusM[p]!
+      const gap = Math.abs(px * ay - py * ax) * invLen - ptRadiusM[p]!
+      // a point further aside than the widest F1 cannot bring the fraction below 1
+      if (gap >= f1Max) continue
       const d1 = t * pathM
       const d2 = pathM - d1
-      const cv = groundAntennaHeightM + dh * t - prep.ptTopM[p]! - (d1 * d2) / twoKEarthRadiusM
+      const cv = groundAntennaHeightM + dh * t - ptTopM[p]! - (d1 * d2) / twoKEarthRadiusM
       const c = gap <= 0 ? cv : cv >= 0 ? Math.sqrt(gap * gap + cv * cv) : gap
       const f1 = Math.sqrt(lamOverD * d1 * d2)
       const f = c / f1

@@ -41,7 +41,7 @@ export interface FitSelectionContext {
   /** 1 where a sample lies inside a dropout. */
   inDropout?: Uint8Array
   /** First-Fresnel-zone clearance fraction per sample (Infinity when nothing is near the path). */
-  clearanceFraction?: Float64Array
+  clearanceFraction?: Float64Array | Float32Array
 }
 
 /**

@@ -131,13 +131,8 @@ export function fitLogDistanceFromLog10(
   // OLS normal equations (e.g. Montgomery & Runger, Applied Statistics, §11.2)
   const slope = sxy / sxx
   const interceptAt1m = my - slope * mx
-  // pass 3: residuals directly, avoiding the cancellation in Syy − b·Sxy
-  let ssr = 0
-  for (let i = 0; i < len; i++) {
-    if (include && include[i] === 0) continue
-    const r = rxPowerDbm[i]! - (interceptAt1m + slope * log10DistanceM[i]!)
-    ssr += r * r
-  }
+  // SSR from centred sums: rounding stays ~1e-16·Syy, far below the residuals of any real fit
+  const ssr = Math.max(0, syy - slope * sxy)
   const sigma = Math.sqrt(ssr / (n - 2))
   const seSlope = sigma / Math.sqrt(sxx)
   const mxD0 = mx - logD0
