@@ -58,6 +58,7 @@ export class RowConverter {
   private readonly slot: Partial<Record<ColumnRole, Slot>> = {}
   private readonly extras: Slot[] = []
   private readonly needed: number
+  private readonly headerCount: number
   private t0 = NaN
   private lastT = -Infinity
   private stored = 0
@@ -86,6 +87,7 @@ export class RowConverter {
       needed = Math.max(needed, index + 1)
     }
     this.needed = needed
+    this.headerCount = header.length
   }
 
   /** Rows accepted so far. */
@@ -102,6 +104,9 @@ export class RowConverter {
   convert(fields: readonly string[], out: SampleRow): RowOutcome {
     if (fields.length < this.needed) {
       return { column: '*', reason: `has ${fields.length} fields, the mapping needs ${this.needed}` }
+    }
+    if (fields.length > this.headerCount && !onlyBlanksFrom(fields, this.headerCount)) {
+      return { column: `#${this.headerCount + 1}`, reason: `has ${fields.length} fields, the header has ${this.headerCount}` }
     }
     const m = this.mapping
     const dc = m.decimalComma
@@ -189,6 +194,12 @@ function optional(cell: string, dc: boolean, range: readonly [number, number]): 
   const v = parseNumberCell(cell, dc)
   if (Number.isNaN(v)) return cell.trim() === '' ? NaN : null
   return v >= range[0] && v <= range[1] ? v : null
+}
+
+/** True when every field from `start` on is blank (a trailing delimiter is harmless). */
+function onlyBlanksFrom(fields: readonly string[], start: number): boolean {
+  for (let i = start; i < fields.length; i++) if (fields[i]!.trim() !== '') return false
+  return true
 }
 
 /** A fresh, reusable row object. */

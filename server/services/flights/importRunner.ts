@@ -43,6 +43,9 @@ interface ScanOutcome {
 /** Parses the file and COPYs its rows on `client` (inside the caller's transaction). */
 async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course, compressed: boolean, bytesTotal: number): Promise<ScanOutcome> {
   const copy = client.query(copyStreams.from(`COPY samples (${SAMPLE_COPY_COLUMNS}) FROM STDIN`))
+  // Errors reach the writer through drain/finish waits; this listener only keeps a late one (after the connection
+  // is dropped on failure) from becoming an unhandled 'error' event.
+  copy.on('error', () => undefined)
   const writer = new CopyRowWriter(copy, imp.flightId)
   const collector = new SeriesCollector()
   const report = progressReporter(imp.id, bytesTotal)

@@ -75,6 +75,12 @@ describe('RowConverter', () => {
   it('throws when a mapped column is not in the header', () => {
     expect(() => new RowConverter(mapping(), ['time_ms', 'lat'], { groundElevM: 0 })).toThrow(MappingMismatchError)
   })
+  it('refuses a row with more fields than the header, but not a trailing delimiter', () => {
+    const c = new RowConverter(mapping(), header, { groundElevM: 0 })
+    const long = ['1', '51', '1', '0', '-50', '100', '', ...Array.from({ length: 300 }, () => '7')]
+    expect(c.convert(long, emptySampleRow())).toEqual({ column: '#8', reason: 'has 307 fields, the header has 7' })
+    expect(c.convert(['1', '51', '1', '0', '-50', '100', '', ''], emptySampleRow())).toBe('ok')
+  })
   it('refuses a short row', () => {
     const c = new RowConverter(mapping(), header, { groundElevM: 0 })
     expect(c.convert(['1', '2'], emptySampleRow())).toMatchObject({ column: '*' })
