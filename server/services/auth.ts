@@ -42,7 +42,7 @@ export async function verifyCredentials(email: string, password: string, address
   const user = await User.findOne({ where: { email } })
   const ok = await verifyPassword(password, user?.passwordHash ?? null)
   if (!ok || !user) return null
-  await clearAccountAttempts(email)
+  await clearAccountAttempts(email, address)
   return user.id
 }
 

@@ -49,9 +49,15 @@ export async function countAddressAttempt(kind: string, address: string): Promis
   if (r.attempts > cfg.loginMaxPerAddress) throw limited(r.resetInS)
 }
 
-/** A successful sign-in clears the account's counter (the address counter keeps running). */
-export async function clearAccountAttempts(email: string): Promise<void> {
+/**
+ * A successful sign-in clears the account's counter and takes its own attempt back off the address
+ * counter, so only failures add up per address (colleagues behind one NAT are not locked out).
+ */
+export async function clearAccountAttempts(email: string, address: string): Promise<void> {
   await sequelize().query('DELETE FROM login_throttles WHERE key = :key', { replacements: { key: `acct:${email}` } })
+  await sequelize().query('UPDATE login_throttles SET attempts = greatest(attempts - 1, 0) WHERE key = :key', {
+    replacements: { key: `addr:${address}` },
+  })
 }
 
 /** Counts one event under `key`; false once the window holds more than `max` events. */

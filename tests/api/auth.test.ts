@@ -162,6 +162,18 @@ describe('POST /api/auth/sign-in', () => {
     expect([limited.status, limited.body.error.code]).toEqual([429, 'RATE_LIMITED'])
   })
 
+  it('counts only failures toward the address limit, so colleagues on one address can still sign in', async () => {
+    const user = await createUser()
+    const { agent, csrf } = await anonymous()
+    for (let i = 0; i < 99; i++) expect((await signIn(agent, csrf, `guess${i}@example.test`, 'password1')).status).toBe(401)
+    for (let i = 0; i < 5; i++) {
+      const colleague = await anonymous()
+      expect((await signIn(colleague.agent, colleague.csrf, user.email, TEST_PASSWORD)).status).toBe(200)
+    }
+    expect((await signIn(agent, csrf, 'guess-100@example.test', 'password1')).status).toBe(401)
+    expect((await signIn(agent, csrf, 'guess-101@example.test', 'password1')).status).toBe(429)
+  })
+
   it('counts parallel attempts exactly, so no more than 10 are checked', async () => {
     const user = await createUser()
     const { agent, csrf } = await anonymous()
