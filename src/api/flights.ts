@@ -1,67 +1,33 @@
 import type { ListResult } from '@shared/types/api'
 import type { FlightAnalysis } from '@shared/analysis/types'
 import type { ColumnMapping } from '@shared/import/mapping'
-import type { RowReportDto } from '@shared/import/rowReport'
+import type {
+  FlightDetailDto,
+  FlightDto as SharedFlightDto,
+  FlightSamplesDto,
+  FlightStatus,
+  FlightStatusDto,
+} from '@shared/types/flight'
 import { apiDelete, apiGet, apiPatch, apiPost, upload, type UploadProgress } from './client'
 
-// TODO(#4): move these DTOs to shared/types/flight.ts once the import side publishes its own there
-export type FlightStatus = 'queued' | 'importing' | 'analysing' | 'ready' | 'failed'
+export type { FlightStatus, ImportProgress, FlightStatusDto } from '@shared/types/flight'
 
-export interface ImportProgress {
-  bytesDone: number
-  bytesTotal: number
-  rowsDone: number
-}
+/** A flight as lists show it (shared FlightDto). */
+export type FlightListItemDto = SharedFlightDto
 
-export interface FlightStatusDto {
-  id: number
-  status: FlightStatus
-  progress: ImportProgress | null
-  failureReason?: string | null
-  rowErrors?: RowReportDto | null
-}
-
-export interface FlightListItemDto {
-  id: number
-  name: string
-  flownOn: string
-  courseId: number
-  setupId: number
-  status: FlightStatus
-  rowCount: number | null
-  courseName?: string
-  setupName?: string
-  pilotName?: string
-  dropoutCount?: number | null
-  maxDistanceWithLinkM?: number | null
-  createdAt: string
-}
-
-export interface FlightDto extends FlightListItemDto {
-  notes: string
-  createdBy: number | null
-  failureReason: string | null
-  progress: ImportProgress | null
-  badRowCount: number | null
-  rowErrors: RowReportDto | null
-  mapping: ColumnMapping | null
-  sourceFormat: 'delimited' | 'gpx'
+/** One flight with its analysis typed, as the flight screen reads it. */
+export interface FlightDetail extends Omit<FlightDetailDto, 'analysis'> {
   analysis: FlightAnalysis | null
-  analysisVersion: string | null
-  updatedAt: string
 }
+/** Kept for callers written against the first version of this module: a flight with its analysis. */
+export type FlightDto = FlightDetail
 
-/** Decimated samples of a time window, as parallel columns. */
-export interface SamplesDto {
-  tMs: number[]
+/** Decimated samples of a time window, as parallel columns (null where a value was not logged). */
+export type SamplesDto = Omit<FlightSamplesDto, 'total' | 'decimated' | 'lat' | 'lon'> & {
   lat: (number | null)[]
   lon: (number | null)[]
-  altM: (number | null)[]
-  rssi1Dbm: (number | null)[]
-  rssi2Dbm: (number | null)[]
-  lq: (number | null)[]
-  snr: (number | null)[]
-  distM: (number | null)[]
+  total?: number
+  decimated?: boolean
 }
 
 export interface FlightListQuery {
@@ -70,8 +36,8 @@ export interface FlightListQuery {
   from?: string
   to?: string
   q?: string
+  /** A key of flownOn, name, createdAt, rowCount; a leading '-' sorts descending. */
   sort?: string
-  order?: 'asc' | 'desc'
   page?: number
   pageSize?: number
 }
@@ -105,7 +71,7 @@ export function listFlights(params: FlightListQuery): Promise<ListResult<FlightL
   return apiGet(`/flights${query(params)}`)
 }
 
-export function getFlight(id: number): Promise<FlightDto> {
+export function getFlight(id: number): Promise<FlightDetail> {
   return apiGet(`/flights/${id}`)
 }
 
@@ -137,7 +103,7 @@ export function createFlight(
   return upload('/flights', form, onProgress)
 }
 
-export function updateFlight(id: number, patch: FlightUpdate): Promise<FlightDto> {
+export function updateFlight(id: number, patch: FlightUpdate): Promise<FlightDetail> {
   return apiPatch(`/flights/${id}`, patch)
 }
 

@@ -35,6 +35,6 @@ export function importProgress(sentFraction: number, status: FlightStatusDto | n
     case 'ready':
       return { percent: 100, label: 'Ready', state: 'success' }
     case 'failed':
-      return { percent: 100, label: status.failureReason ?? 'The import failed.', state: 'exception' }
+      return { percent: 100, label: status.failure?.message ?? 'The import failed.', state: 'exception' }
   }
 }

@@ -3,7 +3,7 @@ import { computed, ref, shallowRef } from 'vue'
 import type { CourseDto } from '@shared/types/course'
 import type { LinkSetupDto } from '@shared/types/setup'
 import * as flightsApi from '@/api/flights'
-import type { FlightDto, SamplesDto } from '@/api/flights'
+import type { FlightDetail, SamplesDto } from '@/api/flights'
 import { getCourse } from '@/api/courses'
 import { getSetup } from '@/api/setups'
 import { planSampleRequest, pointsForWidth, type SampleRequest, type TimeWindow } from '@/lib/sampleWindow'
@@ -18,7 +18,7 @@ export const DEFAULT_FADE_MARGIN_DB = 10
  * samples and at most one finer window spliced in when the user zooms (a chart or the map).
  */
 export const useFlightDetailStore = defineStore('flightDetail', () => {
-  const flight = ref<FlightDto | null>(null)
+  const flight = ref<FlightDetail | null>(null)
   const course = ref<CourseDto | null>(null)
   const setup = ref<LinkSetupDto | null>(null)
   // large arrays: shallow, they are replaced whole and never mutated

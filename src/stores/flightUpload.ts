@@ -120,7 +120,7 @@ export const useFlightUploadStore = defineStore('flightUpload', () => {
       }
       if (st.status === 'failed') {
         phase.value = 'failed'
-        failure.value = { message: st.failureReason ?? 'The import failed.', details: [], report: st.rowErrors ?? null }
+        failure.value = { message: st.failure?.message ?? 'The import failed.', details: st.failure?.details ?? [], report: null }
         return
       }
       await wait(intervalMs)

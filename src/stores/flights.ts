@@ -8,7 +8,7 @@ import { listCourses } from '@/api/courses'
 import { listSetups } from '@/api/setups'
 
 /** Sort keys the flights list offers (the server keeps the same whitelist). */
-export const FLIGHT_SORT_KEYS = ['flownOn', 'name', 'createdAt'] as const
+export const FLIGHT_SORT_KEYS = ['flownOn', 'name', 'createdAt', 'rowCount'] as const
 export type FlightSortKey = (typeof FLIGHT_SORT_KEYS)[number]
 
 /** The flights list: filters, sort and page live here and go to the server as they are. */
@@ -16,7 +16,7 @@ export const useFlightsStore = defineStore('flights', () => {
   const items = ref<FlightListItemDto[]>([])
   const total = ref(0)
   const loading = ref(false)
-  const query = reactive<Required<Pick<FlightListQuery, 'page' | 'pageSize'>> & FlightListQuery & { order: 'asc' | 'desc' }>({
+  const query = reactive<Required<Pick<FlightListQuery, 'page' | 'pageSize'>> & Omit<FlightListQuery, 'sort'> & { sort: FlightSortKey; order: 'asc' | 'desc' }>({
     q: '',
     courseId: undefined,
     setupId: undefined,
@@ -35,7 +35,9 @@ export const useFlightsStore = defineStore('flights', () => {
     const mine = ++seq
     loading.value = true
     try {
-      const res = await flightsApi.listFlights({ ...query })
+      const { order, sort, ...rest } = query
+      // the API takes one sort parameter: the key, with a leading '-' for descending
+      const res = await flightsApi.listFlights({ ...rest, sort: `${order === 'desc' ? '-' : ''}${sort}` })
       if (mine !== seq) return
       items.value = res.items
       total.value = res.total
@@ -55,7 +57,7 @@ export const useFlightsStore = defineStore('flights', () => {
   }
 
   /** Changes filters and goes back to the first page. */
-  function setFilters(patch: Partial<FlightListQuery>): void {
+  function setFilters(patch: Partial<Omit<FlightListQuery, 'sort'>>): void {
     Object.assign(query, patch, { page: 1 })
   }
 
