@@ -1,0 +1,75 @@
+import { describe, expect, it } from 'vitest'
+import { createLocalProjection, projectToLocal } from '../../../../shared/geo/localProjection.js'
+import { lineOfSightClearance } from '../../../../shared/fresnel/clearance.js'
+import {
+  createClearanceScratch,
+  type Obstacle,
+  prepareObstacles,
+  worstObstacleClearance,
+} from '../../../../shared/fresnel/obstacles.js'
+import { wavelengthM } from '../../../../shared/rf/wavelength.js'
+
+const station = { latDeg: 47.4, lonDeg: 8.5 }
+const proj = createLocalProjection(station.latDeg, station.lonDeg)
+const f = 2.4e9
+const lambda = wavelengthM(f)
+const twoKR = 2 * (4 / 3) * 6_371_000
+/** Geographic position of a point given in metres east/north of the station. */
+const at = (eastM: number, northM: number) => ({
+  latDeg: station.latDeg + northM / proj.north0,
+  lonDeg: station.lonDeg + eastM / proj.east0,
+})
+
+describe('prepareObstacles', () => {
+  it('projects points, edges and vertices around the station', () => {
+    const obstacles: Obstacle[] = [
+      { kind: 'point', label: 'mast', heightM: 20, position: at(100, 0) },
+      { kind: 'polygon', label: 'barn', heightM: 8, ring: [at(0, 10), at(10, 10), at(10, 20)] },
+    ]
+    const p = prepareObstacles(obstacles, station, 400)
+    expect(p.labels).toEqual(['mast', 'barn'])
+    expect(p.segX1.length).toBe(3)
+    expect(p.ptX.length).toBe(4)
+    expect(p.ptX[0]).toBeCloseTo(projectToLocal(proj, at(100, 0).latDeg, at(100, 0).lonDeg).eastM, 9)
+  })
+  it('raises an obstacle standing on higher ground', () => {
+    const p = prepareObstacles([{ kind: 'point', label: 'tree', heightM: 10, baseElevationM: 415, position: at(5, 5) }], station, 400)
+    expect(p.ptTopM[0]).toBe(25)
+  })
+  it('rejects a line with one vertex', () =>
+    expect(() => prepareObstacles([{ kind: 'line', label: 'x', heightM: 1, path: [at(0, 0)] }], station, 0)).toThrow(/vertex count/))
+  it('rejects a negative height naming the obstacle', () =>
+    expect(() => prepareObstacles([{ kind: 'point', label: 'x', heightM: -1, position: at(0, 0) }], station, 0)).toThrow(/obstacles\[0\]\.heightM/))
+})
+
+describe('worstObstacleClearance', () => {
+  const scratch = createClearanceScratch()
+  it('gives the vertical clearance of a wall the path crosses, as lineOfSightClearance does', () => {
+    const wall: Obstacle = { kind: 'line', label: 'wall', heightM: 12, path: [at(-50, 800), at(50, 800)] }
+    const prep = prepareObstacles([wall], station, 0)
+    const got = worstObstacleClearance(prep, 0, 3000, 2, 60, lambda, twoKR, scratch)
+    const want = lineOfSightClearance({ freqHz: f, groundAntennaHeightM: 2, aircraftHeightM: 60, pathLengthM: 3000 }, 800, 12)
+    expect(got).toBeCloseTo(want.clearanceFraction, 5)
+    expect(scratch.obstacleIndex).toBe(0)
+    expect(scratch.distanceM).toBeCloseTo(800, 6)
+  })
+  it('measures a mast beside the path by its distance to the ray', () => {
+    const prep = prepareObstacles([{ kind: 'point', label: 'mast', heightM: 100, position: at(3, 1000) }], station, 0)
+    const got = worstObstacleClearance(prep, 0, 2000, 2, 102, lambda, twoKR, scratch)
+    // the mast top is above the ray, so the gap is purely sideways: 3 m against F1 at mid-path
+    expect(got).toBeCloseTo(3 / (0.5 * Math.sqrt(lambda * 2000)), 4)
+  })
+  it('ignores obstacles far from the path', () => {
+    const prep = prepareObstacles([{ kind: 'point', label: 'far', heightM: 500, position: at(2000, 0) }], station, 0)
+    expect(worstObstacleClearance(prep, 0, 2000, 2, 50, lambda, twoKR, scratch)).toBe(Infinity)
+    expect(scratch.obstacleIndex).toBe(-1)
+  })
+  it('sees a polygon the path enters at its higher crossing', () => {
+    const barn: Obstacle = { kind: 'polygon', label: 'barn', heightM: 15, ring: [at(-20, 400), at(20, 400), at(20, 440), at(-20, 440)] }
+    const prep = prepareObstacles([barn], station, 0)
+    const got = worstObstacleClearance(prep, 0, 1000, 2, 22, lambda, twoKR, scratch)
+    const want = lineOfSightClearance({ freqHz: f, groundAntennaHeightM: 2, aircraftHeightM: 22, pathLengthM: 1000 }, 400, 15)
+    expect(got).toBeCloseTo(want.clearanceFraction, 5)
+    expect(got).toBeLessThan(0)
+  })
+})
