@@ -57,6 +57,19 @@ describe('POST /api/invites/accept', () => {
     expect([reuse.status, reuse.body.error.code]).toEqual([404, 'NOT_FOUND'])
   })
 
+  it('lets exactly one of 5 parallel acceptances of one link succeed', async () => {
+    const admin = await signedIn(app)
+    const token = await invite(admin, 'racer@example.test', 'viewer')
+    const agents = await Promise.all(Array.from({ length: 5 }, () => anonymous()))
+    const all = await Promise.all(
+      agents.map(({ agent, csrf }) => agent.post('/api/invites/accept').set('X-CSRF-Token', csrf).send({ token, name: 'Racer', password: 'racer-password' })),
+    )
+    expect(all.filter((r) => r.status === 200)).toHaveLength(1)
+    expect(all.filter((r) => r.status !== 200).map((r) => r.body.error.code)).toEqual(expect.arrayContaining(['NOT_FOUND']))
+    const { rows } = await pgPool().query(`SELECT count(*)::int AS n FROM users WHERE email = 'racer@example.test'`)
+    expect(rows[0].n).toBe(1)
+  })
+
   it('asks a new account for name and password', async () => {
     const admin = await signedIn(app)
     const token = await invite(admin, 'fresh@example.test')

@@ -49,6 +49,20 @@ describe('PATCH /api/teams/current/members/:userId', () => {
     expect([res.status, res.body.error.code]).toEqual([409, 'CONFLICT'])
   })
 
+  it('lets only one of two admins demoting each other at once succeed', async () => {
+    const a = await signedIn(app)
+    const b = await signedInToTeam(app, a.team.id, 'admin')
+    const [ra, rb] = await Promise.all([
+      a.agent.patch(`/api/teams/current/members/${b.user.id}`).set('X-CSRF-Token', a.csrf).send({ role: 'pilot' }),
+      b.agent.patch(`/api/teams/current/members/${a.user.id}`).set('X-CSRF-Token', b.csrf).send({ role: 'pilot' }),
+    ])
+    // The loser sees either the lock (409) or, if it started after the winner, its own lost role (403).
+    expect([ra.status, rb.status].filter((s) => s === 200)).toHaveLength(1)
+    expect([403, 409]).toContain([ra, rb].find((r) => r.status !== 200)!.status)
+    const { rows } = await pgPool().query(`SELECT count(*)::int AS n FROM memberships WHERE team_id = $1 AND role = 'admin'`, [a.team.id])
+    expect(rows[0].n).toBe(1)
+  })
+
   it('responds 404 NOT_FOUND for a member of another team', async () => {
     const admin = await signedIn(app)
     const other = await signedInElsewhere(app, 'pilot')
