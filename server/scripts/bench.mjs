@@ -36,6 +36,6 @@ try {
     if (code !== 0) failed++
   }
 } finally {
-  if (cluster.started) stopCluster(dataDir)
+  if (cluster.started) stopCluster(cluster.dataDir)
 }
 process.exit(failed ? 1 : 0)
