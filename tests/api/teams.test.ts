@@ -2,7 +2,8 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app.js'
 import { pgPool } from '../../server/db.js'
 import { startMailSink, stopMailSink } from '../../server/services/mailSink.js'
-import { createUser, linkIn, mailsTo, resetDb, signedIn, signedInElsewhere, signedInToTeam } from './helpers.js'
+import { changeMemberRole } from '../../server/services/members.js'
+import { createTeam, createUser, linkIn, mailsTo, resetDb, signedIn, signedInElsewhere, signedInToTeam } from './helpers.js'
 
 const app = createApp()
 
@@ -61,6 +62,16 @@ describe('PATCH /api/teams/current/members/:userId', () => {
     expect([403, 409]).toContain([ra, rb].find((r) => r.status !== 200)!.status)
     const { rows } = await pgPool().query(`SELECT count(*)::int AS n FROM memberships WHERE team_id = $1 AND role = 'admin'`, [a.team.id])
     expect(rows[0].n).toBe(1)
+  })
+
+  it('serialises simultaneous demotions in the service with a row lock (changeMemberRole)', async () => {
+    const team = await createTeam()
+    const a = await createUser({ role: 'admin', teamId: team.id })
+    const b = await createUser({ role: 'admin', teamId: team.id })
+    const results = await Promise.allSettled([changeMemberRole(team.id, a.id, 'pilot'), changeMemberRole(team.id, b.id, 'pilot')])
+    expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1)
+    const rejected = results.find((r) => r.status === 'rejected') as PromiseRejectedResult
+    expect(rejected.reason).toMatchObject({ status: 409, code: 'CONFLICT' })
   })
 
   it('responds 404 NOT_FOUND for a member of another team', async () => {
