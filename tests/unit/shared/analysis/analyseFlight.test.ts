@@ -1,0 +1,188 @@
+import { describe, expect, it } from 'vitest'
+import { analyseFlight, METHOD_VERSION } from '../../../../shared/analysis/analyseFlight.js'
+import { type FlightInput } from '../../../../shared/analysis/types.js'
+import { createLocalProjection } from '../../../../shared/geo/localProjection.js'
+import { freeSpaceLossDb } from '../../../../shared/rf/freeSpaceLoss.js'
+
+const station = { latDeg: 47.4, lonDeg: 8.5, antennaHeightM: 2, groundElevM: 400 }
+const proj = createLocalProjection(station.latDeg, station.lonDeg)
+
+/** Seeded normal deviates (Park–Miller + Box–Muller) so every run sees the same flight. */
+function normals(seed: number) {
+  let s = seed
+  const u = () => (s = (s * 16807) % 2147483647) / 2147483647
+  return () => Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u())
+}
+
+/**
+ * A flight straight out along a bearing and back at a fixed height, 10 Hz, with power from a
+ * log-distance model: Pr = p1m − 10 n log10(d) + σ·N(0, 1).
+ */
+function radialFlight(opts: { n?: number; p1mDbm?: number; sigmaDb?: number; maxM?: number; heightM?: number; bearingDeg?: number; count?: number } = {}): FlightInput {
+  const { n = 2.5, p1mDbm = -5, sigmaDb = 2, maxM = 3000, heightM = 60, bearingDeg = 0, count = 4000 } = opts
+  const gauss = normals(12345)
+  const timeMs = new Float64Array(count)
+  const latDeg = new Float64Array(count)
+  const lonDeg = new Float64Array(count)
+  const altM = new Float64Array(count)
+  const rssiDbm = new Float64Array(count)
+  const b = (bearingDeg * Math.PI) / 180
+  for (let i = 0; i < count; i++) {
+    const phase = i / (count - 1)
+    const r = 20 + (maxM - 20) * (phase < 0.5 ? 2 * phase : 2 - 2 * phase)
+    timeMs[i] = i * 100
+    latDeg[i] = station.latDeg + (r * Math.cos(b)) / proj.north0
+    lonDeg[i] = station.lonDeg + (r * Math.sin(b)) / proj.east0
+    altM[i] = heightM
+    rssiDbm[i] = p1mDbm - 10 * n * Math.log10(r) + sigmaDb * gauss()
+  }
+  return {
+    samples: { timeMs, latDeg, lonDeg, altM, rssiDbm },
+    station,
+    altitudeReference: 'AGL',
+    setup: { freqMHz: 2400, txPowerDbm: 20, txGainDbi: 2, rxAntennas: [{ gainDbi: 2, kind: 'omni' }], cableLossDb: 1, sensitivityDbm: -105, floorDbm: -130 },
+  }
+}
+
+describe('analyseFlight', () => {
+  it('recovers the path-loss exponent of a clean flight inside its 95 % interval', () => {
+    const { result } = analyseFlight(radialFlight({ n: 2.5 }))
+    expect(result.fit).not.toBeNull()
+    expect(result.fit!.exponentLower).toBeLessThanOrEqual(2.5)
+    expect(result.fit!.exponentUpper).toBeGreaterThanOrEqual(2.5)
+    expect(result.fit!.residualSigmaDb).toBeCloseTo(2, 0)
+    expect(result.model.source).toBe('fit')
+    expect(result.dropouts).toHaveLength(0)
+  })
+  it('returns plain JSON: stringify and parse give the same object', () => {
+    const { result } = analyseFlight(radialFlight())
+    expect(JSON.parse(JSON.stringify(result))).toEqual(result)
+    expect(result.methodVersion).toBe(METHOD_VERSION)
+  })
+  it('returns per-sample arrays of the flight length', () => {
+    const input = radialFlight({ count: 500 })
+    const { series } = analyseFlight(input)
+    for (const a of [series.distanceM, series.clearanceFraction, series.marginDb, series.predictedMarginDb, series.inDropout]) expect(a.length).toBe(500)
+    expect(series.distanceM[0]).toBeCloseTo(20, 3)
+    expect(series.marginDb[10]).toBeCloseTo(input.samples.rssiDbm[10]! + 105, 4)
+  })
+  it('reports distances, EIRP and the free-space range of the setup', () => {
+    const { result } = analyseFlight(radialFlight({ maxM: 2500 }), { fadeMarginDb: 10 })
+    expect(result.distances.maxDistanceM).toBeCloseTo(2500, -1)
+    expect(result.summary.eirpDbm).toBe(22)
+    // Friis: 20 + 2 + 2 − 1 − FSPL(d) = −105 + 10
+    const lossAtRange = freeSpaceLossDb(result.summary.freeSpaceRangeM, 2.4e9)
+    expect(20 + 2 + 2 - 1 - lossAtRange).toBeCloseTo(-95, 6)
+    expect(result.summary.distanceFlownM).toBeCloseTo(2 * (2500 - 20), -1)
+  })
+  it('predicts the range where the fitted model meets sensitivity + fade margin', () => {
+    const { result } = analyseFlight(radialFlight({ n: 2.5 }), { fadeMarginDb: 10 })
+    const f = result.fit!
+    const atRange = f.interceptDbm - 10 * f.exponent * Math.log10(result.summary.predictedRangeM! / f.referenceDistanceM)
+    expect(atRange).toBeCloseTo(-95, 6)
+  })
+  it('classifies a dropout behind a wall as an obstruction naming the wall', () => {
+    const input = radialFlight({ sigmaDb: 0.5, heightM: 15 })
+    const wallNorthM = 1000
+    input.obstacles = [
+      {
+        kind: 'line',
+        label: 'hangar wall',
+        heightM: 25,
+        path: [
+          { latDeg: station.latDeg + wallNorthM / proj.north0, lonDeg: station.lonDeg - 50 / proj.east0 },
+          { latDeg: station.latDeg + wallNorthM / proj.north0, lonDeg: station.lonDeg + 50 / proj.east0 },
+        ],
+      },
+    ]
+    // the receiver loses the link while the aircraft is beyond the wall, 1.6–1.8 km out
+    const { timeMs, rssiDbm } = input.samples
+    for (let i = 0; i < timeMs.length; i++) {
+      const r = 20 + 2980 * (i / 3999 < 0.5 ? (2 * i) / 3999 : 2 - (2 * i) / 3999)
+      if (r > 1600 && r < 1800) rssiDbm[i] = -130
+    }
+    const { result } = analyseFlight(input)
+    expect(result.dropouts.length).toBeGreaterThan(0)
+    for (const d of result.dropouts) {
+      expect(d.cause).toBe('obstruction')
+      expect(d.evidence.limitingObstacle).toBe('hangar wall')
+    }
+    expect(result.clearance.belowRuleByObstacle['hangar wall']).toBeGreaterThan(0)
+  })
+  it('classifies a dropout outside a directional antenna beam as a beam dropout', () => {
+    const input = radialFlight({ bearingDeg: 90, sigmaDb: 0.5 })
+    input.setup.rxAntennas = [{ gainDbi: 12, kind: 'directional', azimuthDeg: 0, beamwidthDeg: 30 }]
+    input.samples.rssiDbm.fill(-130, 1000, 1020)
+    const { result } = analyseFlight(input)
+    expect(result.dropouts).toHaveLength(1)
+    expect(result.dropouts[0]!.cause).toBe('beam')
+    expect(result.dropouts[0]!.evidence.maxPointingLossDb).toBeCloseTo(20, 6)
+  })
+  it('classifies losing the link at the far end of a long leg as range', () => {
+    const input = radialFlight({ n: 3, maxM: 8000, sigmaDb: 1 })
+    const { rssiDbm } = input.samples
+    for (let i = 0; i < rssiDbm.length; i++) if (rssiDbm[i]! < -105) rssiDbm[i] = -130
+    const { result } = analyseFlight(input, { fadeMarginDb: 10 })
+    expect(result.dropouts.length).toBeGreaterThan(0)
+    expect(result.summary.dropoutsByCause.range).toBe(result.dropouts.length)
+    expect(result.summary.maxDistanceWithLinkM!).toBeLessThan(8000)
+  })
+  it('reports a telemetry gap as a gap dropout', () => {
+    const input = radialFlight({ sigmaDb: 0.5, maxM: 1000 })
+    for (let i = 2000; i < 4000; i++) input.samples.timeMs[i]! += 5000
+    const { result } = analyseFlight(input)
+    expect(result.dropouts).toHaveLength(1)
+    expect(result.dropouts[0]).toMatchObject({ cause: 'gap', fromGap: true, startIndex: 1999, endIndex: 2000 })
+    expect(result.summary.timeWithLinkMs).toBeLessThan(result.summary.durationMs - 5000)
+  })
+  it('combines two diversity antennas by taking the stronger', () => {
+    const input = radialFlight({ count: 100 })
+    input.samples.rssi2Dbm = input.samples.rssiDbm.map((p, i) => (i % 2 === 0 ? p + 6 : NaN))
+    input.setup.rxAntennas = [{ gainDbi: 2, kind: 'omni' }, { gainDbi: 2, kind: 'omni' }]
+    const { series } = analyseFlight(input)
+    expect(series.rxBestDbm[10]).toBeCloseTo(input.samples.rssiDbm[10]! + 6, 9)
+    expect(series.rxBestDbm[11]).toBe(input.samples.rssiDbm[11])
+  })
+  it('turns AMSL altitudes into heights above the station ground', () => {
+    const input = radialFlight({ count: 50, heightM: 460 })
+    input.altitudeReference = 'AMSL'
+    expect(analyseFlight(input).series.heightM[5]).toBeCloseTo(60, 9)
+  })
+  it('treats a 0,0 fix as missing', () => {
+    const input = radialFlight({ count: 50 })
+    input.samples.latDeg[0] = 0
+    input.samples.lonDeg[0] = 0
+    const { result, series } = analyseFlight(input)
+    expect(Number.isNaN(series.distanceM[0])).toBe(true)
+    expect(result.validFixCount).toBe(49)
+  })
+  it('applies and reports a caller-changed fit selection rule', () => {
+    const { result } = analyseFlight(radialFlight(), { fitSelection: { minDistanceM: 500 } })
+    expect(result.fitSelection.rule.minDistanceM).toBe(500)
+    expect(result.fit!.minDistanceM).toBeGreaterThanOrEqual(500)
+    expect(result.fitSelection.excluded.tooClose).toBeGreaterThan(0)
+  })
+  it('falls back to free space and says why when too few samples remain', () => {
+    const { result } = analyseFlight(radialFlight({ count: 50, maxM: 100 }), { fitSelection: { minDistanceM: 5000 } })
+    expect(result.fit).toBeNull()
+    expect(result.fitError).toMatch(/at least 3/)
+    expect(result.model).toMatchObject({ source: 'free-space', exponent: 2 })
+  })
+  it('lets a terrain ridge limit the clearance', () => {
+    const input = radialFlight({ heightM: 20, count: 400 })
+    input.terrain = { elevationAmslM: (lat) => (Math.abs((lat - station.latDeg) * proj.north0 - 700) < 60 ? 430 : 400) }
+    const { result } = analyseFlight(input)
+    expect(result.clearance.belowRuleByObstacle.terrain).toBeGreaterThan(0)
+  })
+  it('rejects arrays of different lengths naming the field', () => {
+    const input = radialFlight({ count: 20 })
+    input.samples.altM = new Float64Array(19)
+    expect(() => analyseFlight(input)).toThrow(/samples\.altM/)
+  })
+  it('rejects a directional antenna without an azimuth', () => {
+    const input = radialFlight({ count: 20 })
+    input.setup.rxAntennas = [{ gainDbi: 10, kind: 'directional' }]
+    expect(() => analyseFlight(input)).toThrow(/azimuthDeg/)
+  })
+  it('rejects a negative fade margin', () => expect(() => analyseFlight(radialFlight({ count: 20 }), { fadeMarginDb: -1 })).toThrow(/fadeMarginDb/))
+})
