@@ -1,4 +1,5 @@
 import type { ColumnMapping } from '../import/mapping.js'
+import type { SignalLogMapping } from '../import/signalLog.js'
 import type { RowReportDto } from '../import/rowReport.js'
 import type { FieldIssue, ErrorCode } from './api.js'
 
@@ -31,9 +32,10 @@ export interface ImportParams {
   mapping: ColumnMapping | null
   /** Whether the file the job reads is gzip-compressed. */
   compressed?: boolean
-  /** Server-side name of a separate signal log for a GPX track without signal values. */
+  /** Server-side path of a separate signal log for a GPX track without signal values. */
   signalFile?: string | null
-  signalMapping?: ColumnMapping | null
+  signalCompressed?: boolean
+  signalMapping?: SignalLogMapping | null
 }
 
 /** GET /api/flights/:id/status */

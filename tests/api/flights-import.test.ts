@@ -204,7 +204,51 @@ describe('POST /api/flights (GPX)', () => {
     })
   })
 
-  it('refuses a track without signal values (no separate signal log yet) with 422', async () => {
+  it('takes signal values from a separate signal log matched by time when the track has none', async () => {
+    const res = await s.agent
+      .post('/api/flights')
+      .set('X-CSRF-Token', s.csrf)
+      .field('courseId', String(courseId))
+      .field('setupId', String(setupId))
+      .field('name', 'Track with signal log')
+      .field('flownOn', '2026-05-16')
+      .field('signalMapping', fs.readFileSync(path.join(LOGS, 'signal-log.csv.mapping.json'), 'utf8'))
+      .attach('file', path.join(LOGS, 'track-no-signal.gpx'))
+      .attach('signalFile', path.join(LOGS, 'signal-log.csv'))
+    expect(res.status, JSON.stringify(res.body)).toBe(202)
+    expect((await waitForStatus(s, res.body.id)).status).toBe('ready')
+    // the log has a row every 200 ms, the track a point every 100 ms: odd points take the row just before them
+    const log = Papa.parse<string[]>(fs.readFileSync(path.join(LOGS, 'signal-log.csv'), 'utf8'), { skipEmptyLines: true }).data.slice(1)
+    const track = expectedFromGpx('track.gpx')
+    const rows = await storedSamples(res.body.id)
+    expect(rows.length).toBe(track.length)
+    rows.forEach((r, i) => {
+      const sig = log[Math.floor(i / 2)]!
+      expect(Number(r.t_ms)).toBe(track[i]!.tMs)
+      expect(r.rssi1_dbm).toBeCloseTo(Number(sig[1]), 3)
+      expect(r.lq).toBeCloseTo(Number(sig[2]), 3)
+    })
+    expect((await storedCounts()).tmpFiles).toBe(0)
+  })
+
+  it('refuses a track whose signal log does not overlap it in time', async () => {
+    const shifted = fs.readFileSync(path.join(LOGS, 'signal-log.csv'), 'utf8').replace(/2026-05-16/g, '2026-05-17')
+    const res = await s.agent
+      .post('/api/flights')
+      .set('X-CSRF-Token', s.csrf)
+      .field('courseId', String(courseId))
+      .field('setupId', String(setupId))
+      .field('name', 'Track with a day-late log')
+      .field('flownOn', '2026-05-16')
+      .field('signalMapping', fs.readFileSync(path.join(LOGS, 'signal-log.csv.mapping.json'), 'utf8'))
+      .attach('file', path.join(LOGS, 'track-no-signal.gpx'))
+      .attach('signalFile', Buffer.from(shifted), 'late.csv')
+    expect([res.status, res.body.error.code]).toEqual([422, 'UNPROCESSABLE'])
+    expect(res.body.error.message).toMatch(/does not overlap/)
+    expect(await storedCounts()).toMatchObject({ flights: 0, samples: 0, tmpFiles: 0 })
+  })
+
+  it('refuses a track without signal values and without a signal log with 422', async () => {
     const xml = fs.readFileSync(path.join(LOGS, 'track.gpx'), 'utf8').replace(/<extensions>.*?<\/extensions>/g, '')
     const res = await upload(s, Buffer.from(xml), { courseId, setupId, filename: 'plain.gpx' })
     expect([res.status, res.body.error.code]).toEqual([422, 'UNPROCESSABLE'])

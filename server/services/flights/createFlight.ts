@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import type { AuthContext } from '../../types/express.js'
 import { columnMappingSchema, type ColumnMapping } from '../../../shared/import/mapping.js'
+import { signalLogMappingSchema } from '../../../shared/import/signalLog.js'
 import { detectLayout } from '../../../shared/import/detect.js'
 import { headerSignature } from '../../../shared/import/headerSignature.js'
 import { splitQuoted } from '../../../shared/import/recordSplitter.js'
@@ -11,7 +12,9 @@ import { Course } from '../../models/Course.js'
 import { FlightImport } from '../../models/FlightImport.js'
 import { LinkSetup } from '../../models/LinkSetup.js'
 import { findMappingBySignature } from '../columnMappings.js'
-import { precheckUpload } from './precheck.js'
+import { precheckUpload, type SignalUpload } from './precheck.js'
+import { unsupportedType } from './importErrors.js'
+import type { SignalLogMapping } from '../../../shared/import/signalLog.js'
 import { sniffUpload } from './sniff.js'
 import { enqueueImport } from './queue.js'
 import { removeFiles } from './storage.js'
@@ -37,6 +40,19 @@ export const uploadFieldsSchema = z.object({
   flownOn: z.iso.date(),
   notes: z.string().max(5000).optional().default(''),
   mapping: jsonMapping.optional(),
+  signalMapping: z
+    .string()
+    .max(60_000)
+    .transform((s, ctx) => {
+      try {
+        return JSON.parse(s) as unknown
+      } catch {
+        ctx.addIssue({ code: 'custom', message: 'signalMapping must be JSON' })
+        return z.NEVER
+      }
+    })
+    .pipe(signalLogMappingSchema)
+    .optional(),
 })
 
 /** An uploaded file as multer leaves it. */
@@ -76,6 +92,15 @@ async function resolveMapping(teamId: number, sent: ColumnMapping | undefined, h
   throw badRequest('Send a column mapping for this file', [{ path: 'mapping', message: 'required: no saved mapping matches this header' }])
 }
 
+/** Checks that a separate signal log comes with a GPX track and a mapping, and that it is text. */
+async function signalLogFor(format: 'delimited' | 'gpx', extra: UploadedFile, mapping: SignalLogMapping | undefined): Promise<SignalUpload> {
+  if (format !== 'gpx') throw badRequest('A separate signal log goes only with a GPX track', [{ path: 'signalFile', message: 'only with a GPX file' }])
+  if (!mapping) throw badRequest('Send the signal log\'s column mapping', [{ path: 'signalMapping', message: 'required with signalFile' }])
+  const sniff = await sniffUpload(extra.path)
+  if (sniff.format !== 'delimited') throw unsupportedType('The signal log must be a delimited text log')
+  return { file: extra.path, compressed: sniff.compressed, mapping }
+}
+
 /**
  * Accepts an upload: checks fields, course and setup, the file's content (and, for small files, every row), then
  * records the import and queues it. The flight itself appears only when the import commits.
@@ -93,12 +118,12 @@ export async function createFlightFromUpload(
   let handedOver = false
   try {
     if (!file) throw badRequest('Attach the log file', [{ path: 'file', message: 'required' }])
-    if (extra) throw badRequest('Separate signal logs are not supported yet', [{ path: 'signalFile', message: 'not supported' }])
     const fields = parseWith(uploadFieldsSchema, body)
     const { course } = await teamCourseAndSetup(auth.teamId, fields.courseId, fields.setupId)
     const sniff = await sniffUpload(file.path)
     const mapping = sniff.format === 'gpx' ? null : await resolveMapping(auth.teamId, fields.mapping, sniff.head)
-    await precheckUpload(file.path, sniff, mapping, course)
+    const signal = extra ? await signalLogFor(sniff.format, extra, fields.signalMapping) : null
+    await precheckUpload(file.path, sniff, mapping, course, signal)
     const { rows } = await pgPool().query<{ id: string }>(`SELECT nextval(pg_get_serial_sequence('flights', 'id')) AS id`)
     const flightId = Number(rows[0]!.id)
     const imp = await FlightImport.create({
@@ -114,6 +139,9 @@ export async function createFlightFromUpload(
         notes: fields.notes,
         mapping,
         compressed: sniff.compressed,
+        signalFile: signal?.file ?? null,
+        signalCompressed: signal?.compressed ?? false,
+        signalMapping: signal?.mapping ?? null,
       },
       tempFile: file.path,
       sourceFormat: sniff.format,

@@ -124,7 +124,8 @@ export async function getFlightStatus(teamId: number, id: number): Promise<Fligh
     Flight.findOne({ where: { id, teamId }, attributes: ['id', 'status', 'failureReason', 'rowCount'] }),
   ])
   if (!imp && !flight) throw notFound(`Flight ${id}`)
-  const pending = imp && (imp.status === 'queued' || imp.status === 'importing')
+  // Until its job has finished (samples, analysis and the kept original), an import speaks for the flight.
+  const pending = imp && (imp.status === 'queued' || imp.status === 'importing' || imp.status === 'analysing')
   const status = pending || !flight ? imp!.status : flight.status
   const failure =
     imp?.status === 'failed' && imp.failure

@@ -5,6 +5,8 @@ import { RowReport } from '../../../shared/import/rowReport.js'
 import { unprocessable } from './importErrors.js'
 import type { RowSink } from './delimitedScan.js'
 import type { TextChunk } from './source.js'
+import type { SignalSeries } from './signalSeries.js'
+import type { SignalRow } from '../../../shared/import/signalLog.js'
 
 /** Longest single track point accepted, characters. */
 const MAX_POINT_CHARS = 64 * 1024
@@ -12,6 +14,8 @@ const MAX_POINT_CHARS = 64 * 1024
 export interface GpxScanOptions {
   groundElevM: number
   station: { latDeg: number; lonDeg: number }
+  /** A separate signal log, used for points without signal values in their extensions. */
+  signal?: SignalSeries
 }
 
 export interface GpxScanResult {
@@ -48,6 +52,7 @@ export async function scanGpx(chunks: AsyncIterable<TextChunk>, opts: GpxScanOpt
   let t0 = NaN
   let lastT = -Infinity
   let hasSignal = false
+  const fromLog: SignalRow = { timeMs: 0, rssi1Dbm: NaN, rssi2Dbm: NaN, lq: NaN, snr: NaN }
   const onPoint = (xml: string) => {
     point++
     const lat = parseNumberCell(LAT.exec(xml)?.[1] ?? '', false)
@@ -70,6 +75,12 @@ export async function scanGpx(chunks: AsyncIterable<TextChunk>, opts: GpxScanOpt
     const ele = v.ele === undefined ? NaN : parseNumberCell(v.ele, false)
     if (v.ele !== undefined && !(ele >= ALT_M_RANGE[0] && ele <= ALT_M_RANGE[1] + opts.groundElevM)) {
       return report.bad(point, 'ele', 'elevation must be a number in metres')
+    }
+    if (!('rssi1' in sig) && opts.signal?.at(abs, t, fromLog)) {
+      sig.rssi1 = fromLog.rssi1Dbm
+      if (fromLog.rssi2Dbm === fromLog.rssi2Dbm) sig.rssi2 = fromLog.rssi2Dbm
+      if (fromLog.lq === fromLog.lq && !('lq' in sig)) sig.lq = fromLog.lq
+      if (fromLog.snr === fromLog.snr && !('snr' in sig)) sig.snr = fromLog.snr
     }
     const r1 = sig.rssi1 ?? NaN
     if ('rssi1' in sig && !(r1 >= SIGNAL_DBM_RANGE[0] && r1 <= SIGNAL_DBM_RANGE[1])) {

@@ -15,6 +15,8 @@ import { scanDelimited, type RowSink } from './delimitedScan.js'
 import { scanGpx } from './gpxScan.js'
 import { rowIssues, unprocessable } from './importErrors.js'
 import { SeriesCollector } from './seriesCollector.js'
+import { loadSignalLog } from './signalSeries.js'
+import { noSignalMessage } from './precheck.js'
 import { readTextChunks } from './source.js'
 import { archiveOriginal, removeFiles } from './storage.js'
 
@@ -63,10 +65,10 @@ async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course
   const station = { latDeg: course.stationLat, lonDeg: course.stationLon }
   let rowReport: RowReport
   if (imp.sourceFormat === 'gpx') {
-    const r = await scanGpx(chunks, { groundElevM: course.groundElevM, station }, sink)
-    if (r.report.goodRows > 0 && !r.hasSignal) {
-      throw unprocessable('The track has no signal values in its extensions; attach the signal log as a separate file')
-    }
+    const p = imp.params
+    const signal = p.signalFile && p.signalMapping ? await loadSignalLog(p.signalFile, p.signalCompressed === true, p.signalMapping) : undefined
+    const r = await scanGpx(chunks, { groundElevM: course.groundElevM, station, ...(signal ? { signal } : {}) }, sink)
+    if (r.report.goodRows > 0 && !r.hasSignal) throw unprocessable(noSignalMessage(Boolean(signal)))
     rowReport = r.report
   } else {
     rowReport = (await scanDelimited(chunks, { mapping: imp.params.mapping!, groundElevM: course.groundElevM, station }, sink)).report
@@ -99,6 +101,7 @@ export async function runImport(importId: number): Promise<void> {
   let client: pg.PoolClient | null = null
   let outcome: ScanOutcome
   const compressed = imp.params.compressed === true
+  const t0 = performance.now()
   try {
     const course = await Course.findByPk(p.courseId)
     if (!course) throw unprocessable('The course no longer exists')
@@ -126,13 +129,20 @@ export async function runImport(importId: number): Promise<void> {
   } catch (e) {
     // Dropping the connection aborts an open COPY and rolls the transaction back in one step.
     client?.release(true)
-    if (imp.kind === 'create') await removeFiles(imp.tempFile)
+    if (imp.kind === 'create') await removeFiles(imp.tempFile, p.signalFile)
     await imp.update({ status: 'failed', failure: toFailure(e), tempFile: null })
     return
   }
   await imp.update({ status: 'analysing' })
-  await analyseAndStore(imp.flightId, outcome.collector.samples())
-  await keepOriginal(imp, compressed)
+  const t1 = performance.now()
+  // Compressing the original runs in the thread pool while the analysis uses this thread.
+  await Promise.all([analyseAndStore(imp.flightId, outcome.collector.samples()), keepOriginal(imp, compressed)])
+  logger.info(
+    { flightId: imp.flightId, rows: outcome.report.goodRows, importMs: Math.round(t1 - t0), analysisMs: Math.round(performance.now() - t1) },
+    'flight imported',
+  )
+  // The signal log of a GPX track is read once; the kept original is the track itself.
+  await removeFiles(p.signalFile)
   const flight = await Flight.findByPk(imp.flightId, { attributes: ['status'] })
   await imp.update({ status: flight?.status === 'failed' ? 'failed' : 'ready', tempFile: null })
 }

@@ -2,7 +2,7 @@ import type { FlightSamples } from '../../../shared/analysis/types.js'
 import type { SampleRow } from '../../../shared/import/rowConverter.js'
 
 /** Most samples handed to the analysis; longer flights are thinned keeping the weaker sample of each pair. */
-export const ANALYSIS_MAX_SAMPLES = 262_144
+export const ANALYSIS_MAX_SAMPLES = 131_072
 
 const FIELDS = ['t', 'lat', 'lon', 'alt', 'r1', 'r2', 'lq', 'snr'] as const
 type Field = (typeof FIELDS)[number]
