@@ -12,6 +12,8 @@ describe('GET /', () => {
     browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' })
     const page = await browser.newPage()
     await page.goto(`${base}/`)
-    await expect(page.locator('#app').innerText()).resolves.toContain('Ellipsoid')
+    // The client renders after its bundle loads; wait for the shell's text rather than reading at once.
+    await page.locator('#app').getByText('Ellipsoid').first().waitFor({ timeout: 15_000 })
+    expect(await page.locator('#app').innerText()).toContain('Ellipsoid')
   })
 })
