@@ -128,7 +128,7 @@ export function generateFlight(
     obstructionLossDb: new Float64Array(n),
   }
   const floor = setup.floorDbm ?? Math.floor(setup.sensitivityDbm)
-  const decorrM = spec.truth.flightShadowDecorrelationM ?? 30
+  const decorrM = spec.truth.flightShadowDecorrelationM ?? 8
   const sigma = spec.truth.flightShadowSigmaDb ?? 1.5
   const field = createShadowField(
     spec.truth.shadowFieldSeed ?? 1,
@@ -164,8 +164,17 @@ export function generateFlight(
     const frac = worstObstacleClearance(prep, east, north, hAnt, alt, lambda, TWO_K_EARTH_RADIUS_M, scratch)
     const knife = Number.isFinite(frac) ? knifeEdgeLossDb(knifeEdgeNu(scratch.clearanceM, scratch.f1RadiusM)) : 0
     const ground = field.atDb(east, north)
+    // heading against the bearing to the station: the tail faces the station when flying straight away
+    const k0 = Math.max(0, i - 1)
+    const k1 = Math.min(track.timeMs.length - 1, i + 1)
+    const vx = track.eastM[k1]! - track.eastM[k0]!
+    const vy = track.northM[k1]! - track.northM[k0]!
+    const vLen = Math.hypot(vx, vy)
+    const awayCos = vLen > 0 && horiz > 1 ? (vx * east + vy * north) / (vLen * horiz) : 0
+    const tail = ((spec.truth.tailShadowDb ?? 0) * (1 + awayCos)) / 2
     const common =
-      ground +
+      ground -
+      tail +
       setup.txPowerDbm + setup.txGainDbi - setup.cableLossDb - (spec.truth.hiddenLossDb ?? 0) - pathLoss - knife
     let best = -Infinity
     for (let k = 0; k < nAnt; k++) {

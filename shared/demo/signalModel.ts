@@ -27,12 +27,14 @@ export interface PropagationTruth {
   shadowFieldSeed?: number
   /** Shadowing that changes from flight to flight (aircraft attitude, people moving), dB, >= 0 (default 1.5). */
   flightShadowSigmaDb?: number
-  /** Distance over which the per-flight part decorrelates, m (default 30). */
+  /** Distance over which the per-flight part decorrelates, m (default 8). */
   flightShadowDecorrelationM?: number
   /** Ground reflection coefficient magnitude, [0, 1] (default 0.75; the sign is negative as for grazing incidence). */
   reflectionMagnitude?: number
   /** Distance scale over which the ground reflection weakens, m (default 300): rough ground scatters it far out. */
   reflectionTaperM?: number
+  /** Loss when the airframe sits between its antenna and the station (flying straight away), dB, >= 0 (default 0). */
+  tailShadowDb?: number
   /** Extra loss not in the setup (unlisted cable, bad connector), dB, >= 0 (default 0). */
   hiddenLossDb?: number
 }

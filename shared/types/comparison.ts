@@ -120,3 +120,6 @@ export interface ComparisonDto {
 export interface ComparisonDetailDto extends ComparisonDto {
   result: ComparisonResultDto
 }
+
+/** Name of the comparison the demo scenario saves; the overview offers it in one click. */
+export const DEMO_COMPARISON_NAME = 'Power vs antenna'
