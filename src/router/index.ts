@@ -105,6 +105,41 @@ export const router = createRouter({
       meta: { title: 'Flight' },
     },
     {
+      path: '/compare',
+      name: 'compare',
+      component: () => import('@/views/CompareView.vue'),
+      props: (route) => ({
+        flightIds: typeof route.query.flightIds === 'string' ? route.query.flightIds : undefined,
+        baselineId: typeof route.query.baselineId === 'string' ? route.query.baselineId : undefined,
+      }),
+      meta: { title: 'Compare flights' },
+    },
+    {
+      path: '/comparisons',
+      name: 'comparisons',
+      component: () => import('@/views/ComparisonsView.vue'),
+      props: true,
+      meta: { title: 'Saved comparisons' },
+    },
+    {
+      path: '/comparisons/:comparisonId',
+      name: 'comparison-detail',
+      component: () => import('@/views/CompareView.vue'),
+      props: true,
+      meta: { title: 'Comparison' },
+    },
+    {
+      path: '/plan',
+      name: 'planner',
+      component: () => import('@/views/PlannerView.vue'),
+      props: (route) => ({
+        flightId: typeof route.query.flightId === 'string' ? route.query.flightId : undefined,
+        setupId: typeof route.query.setupId === 'string' ? route.query.setupId : undefined,
+        courseId: typeof route.query.courseId === 'string' ? route.query.courseId : undefined,
+      }),
+      meta: { title: 'Plan a link' },
+    },
+    {
       path: '/account',
       name: 'account',
       component: () => import('@/views/AccountView.vue'),

@@ -16,6 +16,8 @@ export const NAV_ENTRIES: NavEntry[] = [
   { routeName: 'courses', label: 'Courses' },
   { routeName: 'setups', label: 'Link setups' },
   { routeName: 'flights', label: 'Flights' },
+  { routeName: 'compare', label: 'Compare' },
+  { routeName: 'planner', label: 'Plan a link' },
   { routeName: 'team-members', label: 'Team members' },
   { routeName: 'account', label: 'My account' },
   { routeName: 'dev-outbox', label: 'Sent e-mail (dev)', roles: ['admin'], feature: 'devOutbox' },
