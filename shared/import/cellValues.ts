@@ -1,5 +1,34 @@
 import type { TimeFormat } from './mapping.js'
 
+// Exact powers of ten: a mantissa below 2^53 divided by one of these is correctly rounded, as Number() is
+// (Clinger 1990, "How to read floating point numbers accurately", fast path).
+const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i)
+
+/** Plain `[-+]digits[.digits]` with at most 15 digits, read exactly; NaN for anything else (the caller falls back). */
+function fastDecimal(s: string): number {
+  const n = s.length
+  let i = 0
+  let c = s.charCodeAt(0)
+  const neg = c === 45
+  if (neg || c === 43) i = 1
+  let mant = 0
+  let digits = 0
+  let frac = 0
+  let dot = false
+  for (; i < n; i++) {
+    c = s.charCodeAt(i)
+    if (c >= 48 && c <= 57) {
+      mant = mant * 10 + (c - 48)
+      digits++
+      if (dot) frac++
+    } else if (c === 46 && !dot) dot = true
+    else return NaN
+  }
+  if (digits === 0 || digits > 15) return NaN
+  const v = frac ? mant / POW10[frac]! : mant
+  return neg ? -v : v
+}
+
 /**
  * Reads a numeric cell strictly: decimal notation with optional sign and exponent; no hex, no Infinity, no blanks.
  * @param cell raw cell text
@@ -10,6 +39,8 @@ export function parseNumberCell(cell: string, decimalComma: boolean): number {
   let s = cell.length && (cell.charCodeAt(0) === 32 || cell.charCodeAt(cell.length - 1) === 32) ? cell.trim() : cell
   if (s.length === 0) return NaN
   if (decimalComma && s.indexOf(',') >= 0) s = s.replace(',', '.')
+  const fast = fastDecimal(s)
+  if (fast === fast) return fast
   const v = Number(s)
   if (!Number.isFinite(v)) return NaN
   // Number() also takes 0x10, 0b1, 0o7 and blanks; a letter in second place (other than an exponent) is one of those.
@@ -18,6 +49,17 @@ export function parseNumberCell(cell: string, decimalComma: boolean): number {
     if (c > 57 && c !== 101 && c !== 69) return NaN
   }
   return v
+}
+
+/**
+ * Whether a cell that parsed as a number can go to the database as written (no spaces, no decimal comma), which
+ * saves turning the number back into text.
+ * @param cell raw cell text
+ * @param decimalComma whether the file uses a decimal comma
+ */
+export function isPlainNumberText(cell: string, decimalComma: boolean): boolean {
+  const n = cell.length
+  return n > 0 && cell.charCodeAt(0) !== 32 && cell.charCodeAt(n - 1) !== 32 && !(decimalComma && cell.indexOf(',') >= 0)
 }
 
 const ZONE = /(?:[zZ]|[+-]\d\d:?\d\d)$/

@@ -1,5 +1,5 @@
 import type { ColumnMapping, ColumnRole } from './mapping.js'
-import { parseDateTimeCells, parseNumberCell, parseTimeCell } from './cellValues.js'
+import { isPlainNumberText, parseDateTimeCells, parseNumberCell, parseTimeCell } from './cellValues.js'
 
 const FT_TO_M = 0.3048
 
@@ -22,6 +22,19 @@ export interface SampleRow {
   snr: number
   /** Extra columns as written, or null when the mapping keeps none. */
   extras: Record<string, string> | null
+  /** The cells as written when they can be stored unchanged (plain decimal text in final units), else null. */
+  text: SampleText
+}
+
+/** Cell text usable as stored value, per field; null means "format the number". */
+export interface SampleText {
+  lat: string | null
+  lon: string | null
+  altM: string | null
+  rssi1Dbm: string | null
+  rssi2Dbm: string | null
+  lq: string | null
+  snr: string | null
 }
 
 /** Why a row was refused, naming the column. */
@@ -151,7 +164,27 @@ export class RowConverter {
     out.lq = lq
     out.snr = snr
     out.extras = this.extras.length ? this.readExtras(fields) : null
+    this.fillText(fields, out.text)
     return 'ok'
+  }
+
+  /** Keeps cell text for values stored exactly as written (no unit change, no decimal comma, no spaces). */
+  private fillText(fields: readonly string[], t: SampleText): void {
+    const s = this.slot
+    const m = this.mapping
+    const dc = m.decimalComma
+    const keep = (slot: Slot | undefined, asIs: boolean): string | null => {
+      if (!slot || !asIs) return null
+      const cell = fields[slot.index]!
+      return isPlainNumberText(cell, dc) ? cell : null
+    }
+    t.lat = keep(s.lat, true)
+    t.lon = keep(s.lon, true)
+    t.altM = keep(s.alt, m.altUnit === 'm' && m.altReference === 'agl')
+    t.rssi1Dbm = keep(s.rssi1, m.signalUnit === 'dbm')
+    t.rssi2Dbm = keep(s.rssi2, m.signalUnit === 'dbm')
+    t.lq = keep(s.lq, true)
+    t.snr = keep(s.snr, true)
   }
 
   private signal(cell: string): number {
@@ -204,5 +237,16 @@ function onlyBlanksFrom(fields: readonly string[], start: number): boolean {
 
 /** A fresh, reusable row object. */
 export function emptySampleRow(): SampleRow {
-  return { tMs: 0, lat: 0, lon: 0, altM: NaN, rssi1Dbm: NaN, rssi2Dbm: NaN, lq: NaN, snr: NaN, extras: null }
+  return {
+    tMs: 0,
+    lat: 0,
+    lon: 0,
+    altM: NaN,
+    rssi1Dbm: NaN,
+    rssi2Dbm: NaN,
+    lq: NaN,
+    snr: NaN,
+    extras: null,
+    text: { lat: null, lon: null, altM: null, rssi1Dbm: null, rssi2Dbm: null, lq: null, snr: null },
+  }
 }

@@ -8,6 +8,7 @@ import { LinkSetup } from '../../models/LinkSetup.js'
 import { terrainSampler } from '../terrain.js'
 import { buildFlightInput } from './analysisInput.js'
 import { SeriesCollector } from './seriesCollector.js'
+import { emptySampleRow } from '../../../shared/import/rowConverter.js'
 
 const READ_BATCH = 50_000
 
@@ -19,7 +20,7 @@ const READ_BATCH = 50_000
  */
 export async function readSeries(flightId: number): Promise<FlightSamples & { thinnedBy: number }> {
   const c = new SeriesCollector()
-  const row = { tMs: 0, lat: 0, lon: 0, altM: NaN, rssi1Dbm: NaN, rssi2Dbm: NaN, lq: NaN, snr: NaN, extras: null }
+  const row = emptySampleRow()
   const n = (v: number | null) => (v === null ? NaN : v)
   for (let from = 0; ; from += READ_BATCH) {
     const { rows } = await pgPool().query<{ t: string; la: number; lo: number; a: number | null; r1: number | null; r2: number | null; q: number | null; s: number | null }>(

@@ -33,27 +33,28 @@ export class CopyRowWriter {
 
   /** Queues one row; call flush() once per input chunk. */
   add(seq: number, r: SampleRow, distM: number): void {
+    const x = r.text
     const line =
       this.prefix +
       seq +
       '\t' +
       Math.round(r.tMs) +
       '\t' +
-      r.lat +
+      (x.lat ?? r.lat) +
       '\t' +
-      r.lon +
+      (x.lon ?? r.lon) +
       '\t' +
-      num(r.altM) +
+      (x.altM ?? num(r.altM)) +
       '\t' +
-      num(r.rssi1Dbm) +
+      (x.rssi1Dbm ?? num(r.rssi1Dbm)) +
       '\t' +
-      num(r.rssi2Dbm) +
+      (x.rssi2Dbm ?? num(r.rssi2Dbm)) +
       '\t' +
-      num(r.lq) +
+      (x.lq ?? num(r.lq)) +
       '\t' +
-      num(r.snr) +
+      (x.snr ?? num(r.snr)) +
       '\t' +
-      num(distM) +
+      num(Math.round(distM * 100) / 100) +
       '\t' +
       (r.extras ? copyText(JSON.stringify(r.extras)) : '\\N') +
       '\n'

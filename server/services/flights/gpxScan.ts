@@ -102,6 +102,7 @@ export async function scanGpx(chunks: AsyncIterable<TextChunk>, opts: GpxScanOpt
     out.lq = lq
     out.snr = snr
     out.extras = null
+    out.text.lat = out.text.lon = out.text.altM = out.text.rssi1Dbm = out.text.rssi2Dbm = out.text.lq = out.text.snr = null
     sink.row(seq++, out, groundDistanceM(opts.station.latDeg, opts.station.lonDeg, lat, lon))
     report.goodRows++
   }

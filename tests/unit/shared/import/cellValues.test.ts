@@ -8,8 +8,20 @@ describe('parseNumberCell', () => {
   it('reads a decimal comma when asked', () => {
     expect(parseNumberCell('51,125', true)).toBe(51.125)
   })
+  it('reads plain decimals exactly as Number() does (fast path), across signs, lengths and precisions', () => {
+    let seed = 7
+    const rnd = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32)
+    for (let i = 0; i < 20_000; i++) {
+      const v = (rnd() - 0.5) * 10 ** Math.floor(rnd() * 8)
+      const s = v.toFixed(Math.floor(rnd() * 10))
+      expect(parseNumberCell(s, false)).toBe(Number(s))
+    }
+    for (const s of ['-0', '.5', '5.', '+7.25', '123456789012345', '1234567890123456789', '0.1000000000000000055511']) {
+      expect(Object.is(parseNumberCell(s, false), Number(s)), s).toBe(true)
+    }
+  })
   it('refuses blanks, hex, Infinity and text', () => {
-    for (const s of ['', ' ', '0x10', 'Infinity', '1e309', 'abc', '12abc', '0b1']) {
+    for (const s of ['', ' ', '0x10', 'Infinity', '1e309', 'abc', '12abc', '0b1', '.', '-', '1.2.3', '--1']) {
       expect(parseNumberCell(s, false), s).toBeNaN()
     }
   })
