@@ -73,8 +73,13 @@ export interface EvidenceFields {
 export function evidenceText(e: EvidenceFields, distance: (m: number) => string): string {
   const parts: string[] = []
   if (e.minClearanceFraction !== null) {
-    const by = e.limitingObstacle && e.limitingObstacle !== 'ground' ? ` (${e.limitingObstacle})` : e.limitingObstacle === 'ground' ? ' (ground)' : ''
-    parts.push(`Fresnel clearance ${Math.round(e.minClearanceFraction * 100)} %${by}`)
+    const what = e.limitingObstacle ?? 'ground'
+    // below zero the straight line itself is cut: a percentage of the zone means little then
+    parts.push(
+      e.minClearanceFraction < 0
+        ? `line of sight cut by ${what}`
+        : `Fresnel clearance ${Math.round(e.minClearanceFraction * 100)} % (${what})`,
+    )
   }
   if (e.maxPointingLossDb >= 1) parts.push(`${e.maxPointingLossDb.toFixed(1)} dB off the beam`)
   if (e.predictedMarginDb !== null) parts.push(`model margin ${e.predictedMarginDb.toFixed(1)} dB`)

@@ -2,7 +2,7 @@ import Papa from 'papaparse'
 import { detectLayout, type LayoutGuess } from '@shared/import/detect'
 import { guessMapping } from '@shared/import/guessRoles'
 import { headerSignature } from '@shared/import/headerSignature'
-import { SINGLE_ROLES, type ColumnMapping } from '@shared/import/mapping'
+import { SINGLE_ROLES, type ColumnMapping, type ColumnRole } from '@shared/import/mapping'
 
 /** How much of a log the preview reads: enough for a header and a screenful of rows. */
 export const PREVIEW_BYTES = 64 * 1024
@@ -78,7 +78,8 @@ export async function readLogHead(file: File, maxBytes = PREVIEW_BYTES): Promise
       new DecompressionStream('gzip') as unknown as ReadableWritablePair<Uint8Array, Uint8Array>,
     )
   const reader = stream.getReader()
-  const decoder = new TextDecoder('utf-8')
+  // keep a byte-order mark in the text: the layout check reports it
+  const decoder = new TextDecoder('utf-8', { ignoreBOM: true })
   let text = ''
   let total = 0
   let complete = false
@@ -112,4 +113,25 @@ export function assignRole(m: ColumnMapping, index: number, role: ColumnMapping[
   })
   const timeFormat = role === 'date' ? 'date+time' : m.timeFormat
   return { ...m, columns, timeFormat }
+}
+
+/** What each column role is called in the form. */
+export const ROLE_LABELS: Record<ColumnRole, string> = {
+  time: 'Time',
+  date: 'Date (time in another column)',
+  lat: 'Latitude',
+  lon: 'Longitude',
+  alt: 'Altitude',
+  rssi1: 'Signal, antenna 1',
+  rssi2: 'Signal, antenna 2',
+  lq: 'Link quality (%)',
+  snr: 'SNR (dB)',
+  extra: 'Keep as extra',
+  ignore: 'Leave out',
+}
+
+/** A shared-schema message with role ids ("rssi1") replaced by the names the form shows. */
+export function friendlyMappingMessage(message: string): string {
+  return message.replace(/\b(time|date|lat|lon|alt|rssi1|rssi2|lq|snr)\b(?= column)/g, (r) => `"${ROLE_LABELS[r as ColumnRole]}"`)
+    .replace(/^Only one column may be (\w+)$/, (_m, r: string) => `Only one column may be "${ROLE_LABELS[r as ColumnRole] ?? r}"`)
 }

@@ -7,7 +7,15 @@ import * as flightsApi from '@/api/flights'
 import type { FlightStatusDto, NewFlightFields } from '@/api/flights'
 import * as mappingsApi from '@/api/columnMappings'
 import { ApiError } from '@/api/client'
-import { logKind, previewFromText, proposeMapping, readLogHead, type LogKind, type LogPreview } from '@/lib/logPreview'
+import {
+  friendlyMappingMessage,
+  logKind,
+  previewFromText,
+  proposeMapping,
+  readLogHead,
+  type LogKind,
+  type LogPreview,
+} from '@/lib/logPreview'
 import { importProgress } from '@/lib/importProgress'
 
 export type UploadPhase = 'form' | 'sending' | 'processing' | 'ready' | 'failed'
@@ -45,7 +53,7 @@ export const useFlightUploadStore = defineStore('flightUpload', () => {
   const mappingIssues = computed(() => {
     if (!mapping.value) return []
     const r = columnMappingSchema.safeParse(mapping.value)
-    return r.success ? [] : [...new Set(r.error.issues.map((i) => i.message))]
+    return r.success ? [] : [...new Set(r.error.issues.map((i) => friendlyMappingMessage(i.message)))]
   })
   /** The file whose columns are being mapped: the log itself, or a GPX track's separate signal log. */
   const mappedFile = computed(() => (kind.value === 'gpx' ? signalFile.value : file.value))

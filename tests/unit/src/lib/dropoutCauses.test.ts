@@ -20,5 +20,9 @@ describe('evidenceText', () => {
     expect(evidenceText({ ...base, minClearanceFraction: null, predictedMarginDb: null, signalBeforeDbm: null, maxPointingLossDb: 6, nearNull: true }, (m) => `${m} m`)).toBe(
       '6.0 dB off the beam · near a reflection null at 420 m',
     ))
+  it('says the line of sight is cut instead of a negative clearance', () =>
+    expect(evidenceText({ ...base, minClearanceFraction: -3.2, predictedMarginDb: null, signalBeforeDbm: null }, (m) => `${m} m`)).toBe(
+      'line of sight cut by tree line',
+    ))
   it('falls back to "unexplained" styling for an unknown cause', () => expect(causeStyle('solar flare').letter).toBe('?'))
 })

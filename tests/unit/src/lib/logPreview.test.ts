@@ -50,3 +50,11 @@ describe('assignRole', async () => {
   })
   it('switches the time format when a date column is chosen', () => expect(assignRole(m, 3, 'date').timeFormat).toBe('date+time'))
 })
+
+describe('friendlyMappingMessage', async () => {
+  const { friendlyMappingMessage } = await import('@/lib/logPreview')
+  it('names roles as the form does', () => {
+    expect(friendlyMappingMessage('Choose one rssi1 column')).toBe('Choose one "Signal, antenna 1" column')
+    expect(friendlyMappingMessage('Only one column may be lat')).toBe('Only one column may be "Latitude"')
+  })
+})
