@@ -1,6 +1,8 @@
 // The demo scenario: an invented club at an invented field. Filled in by the features that own its parts.
 import type { Role } from '../../../shared/types/api.js'
 import { countUsers, createTeamWithMembers } from '../../services/members.js'
+import { seedDemoCoursesAndSetups } from './courses.js'
+import { seedDemoFlightsAndComparison } from './flights.js'
 
 export interface DemoUser {
   email: string
@@ -36,6 +38,9 @@ export async function seedDemoTeam(): Promise<DemoTeamIds> {
 /** Seeds the demo when the database holds no users; returns true when it did. */
 export async function seedDemoIfEmpty(): Promise<boolean> {
   if ((await countUsers()) > 0) return false
-  await seedDemoTeam()
+  const team = await seedDemoTeam()
+  const refs = await seedDemoCoursesAndSetups(team.teamId, team.userIds.admin)
+  // generated flights go through the real import pipeline, then the "Power vs antenna" comparison is saved
+  await seedDemoFlightsAndComparison(team.teamId, team.userIds.pilot, refs)
   return true
 }
