@@ -20,8 +20,8 @@ export interface SampleRow {
   rssi2Dbm: number
   lq: number
   snr: number
-  /** Extra columns as written, or null when the mapping keeps none. */
-  extras: Record<string, string> | null
+  /** Extra columns as written, as a JSON object text, or null when the mapping keeps none. */
+  extrasJson: string | null
   /** The cells as written when they can be stored unchanged (plain decimal text in final units), else null. */
   text: SampleText
 }
@@ -70,6 +70,7 @@ interface Slot {
 export class RowConverter {
   private readonly slot: Partial<Record<ColumnRole, Slot>> = {}
   private readonly extras: Slot[] = []
+  private extraKeys: string[] = []
   private readonly needed: number
   private readonly headerCount: number
   private t0 = NaN
@@ -101,6 +102,7 @@ export class RowConverter {
     }
     this.needed = needed
     this.headerCount = header.length
+    this.extraKeys = this.extras.map((e, i) => `${i ? ',' : '{'}${JSON.stringify(e.name)}:`)
   }
 
   /** Rows accepted so far. */
@@ -163,7 +165,7 @@ export class RowConverter {
     out.rssi2Dbm = rssi2
     out.lq = lq
     out.snr = snr
-    out.extras = this.extras.length ? this.readExtras(fields) : null
+    out.extrasJson = this.extras.length ? this.readExtras(fields) : null
     this.fillText(fields, out.text)
     return 'ok'
   }
@@ -210,10 +212,10 @@ export class RowConverter {
     return v >= ALT_M_RANGE[0] && v <= ALT_M_RANGE[1] ? v : NaN
   }
 
-  private readExtras(fields: readonly string[]): Record<string, string> {
-    const o: Record<string, string> = {}
-    for (const e of this.extras) o[e.name] = fields[e.index] ?? ''
-    return o
+  private readExtras(fields: readonly string[]): string {
+    let json = ''
+    for (let i = 0; i < this.extras.length; i++) json += this.extraKeys[i]! + JSON.stringify(fields[this.extras[i]!.index] ?? '')
+    return json + '}'
   }
 }
 
@@ -246,7 +248,7 @@ export function emptySampleRow(): SampleRow {
     rssi2Dbm: NaN,
     lq: NaN,
     snr: NaN,
-    extras: null,
+    extrasJson: null,
     text: { lat: null, lon: null, altM: null, rssi1Dbm: null, rssi2Dbm: null, lq: null, snr: null },
   }
 }

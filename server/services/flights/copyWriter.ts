@@ -7,7 +7,7 @@ import type { SampleRow } from '../../../shared/import/rowConverter.js'
 export const SAMPLE_COPY_COLUMNS =
   'flight_id, seq, t_ms, lat, lon, alt_m, rssi1_dbm, rssi2_dbm, lq, snr, dist_m, extras'
 
-const FLUSH_CHARS = 256 * 1024
+const FLUSH_CHARS = 64 * 1024
 
 function num(v: number): string {
   return v === v ? String(v) : '\\N'
@@ -56,7 +56,7 @@ export class CopyRowWriter {
       '\t' +
       num(Math.round(distM * 100) / 100) +
       '\t' +
-      (r.extras ? copyText(JSON.stringify(r.extras)) : '\\N') +
+      (r.extrasJson === null ? '\\N' : copyText(r.extrasJson)) +
       '\n'
     this.parts.push(line)
     this.chars += line.length

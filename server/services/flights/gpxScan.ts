@@ -101,7 +101,7 @@ export async function scanGpx(chunks: AsyncIterable<TextChunk>, opts: GpxScanOpt
     out.rssi2Dbm = sig.rssi2 ?? NaN
     out.lq = lq
     out.snr = snr
-    out.extras = null
+    out.extrasJson = null
     out.text.lat = out.text.lon = out.text.altM = out.text.rssi1Dbm = out.text.rssi2Dbm = out.text.lq = out.text.snr = null
     sink.row(seq++, out, groundDistanceM(opts.station.latDeg, opts.station.lonDeg, lat, lon))
     report.goodRows++

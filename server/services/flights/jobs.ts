@@ -2,6 +2,19 @@ import { analyseAndStore } from './analyse.js'
 import { recomputeDistances } from './flights.js'
 import { runImport } from './importRunner.js'
 import { startFlightJobs, stopFlightJobs, type AnalyseJob } from './queue.js'
+import { removeOrphanTempFiles } from './storage.js'
+import { FlightImport } from '../../models/FlightImport.js'
+import { logger } from '../../logger.js'
+
+/** Uploads older than this with no unfinished import are leftovers of a crash. */
+const ORPHAN_AGE_MS = 6 * 3600_000
+
+async function sweepTempFiles(): Promise<void> {
+  const open = await FlightImport.findAll({ where: { status: ['queued', 'importing', 'analysing'] }, attributes: ['tempFile', 'params'] })
+  const inUse = new Set(open.flatMap((i) => [i.tempFile, i.params.signalFile].filter((f): f is string => Boolean(f))))
+  const n = await removeOrphanTempFiles(inUse, ORPHAN_AGE_MS)
+  if (n) logger.info({ removed: n }, 'removed orphaned upload files')
+}
 
 async function analyse(job: AnalyseJob): Promise<void> {
   if (job.recomputeDistances) await recomputeDistances(job.flightId)
@@ -11,6 +24,9 @@ async function analyse(job: AnalyseJob): Promise<void> {
 /** Background service: the flight import and analysis workers of this instance. */
 export const flightJobsService = {
   name: 'flight jobs',
-  start: () => startFlightJobs({ runImport, analyse }),
+  start: async () => {
+    await startFlightJobs({ runImport, analyse })
+    await sweepTempFiles().catch((e: Error) => logger.warn({ err: e.message }, 'temp sweep failed'))
+  },
   stop: stopFlightJobs,
 }

@@ -22,7 +22,7 @@ export interface TextChunk {
 export async function* readTextChunks(file: string, opts: TextSourceOptions): AsyncGenerator<TextChunk> {
   const partial = opts.limitBytes !== undefined
   const fileStream = fs.createReadStream(file, {
-    highWaterMark: 256 * 1024,
+    highWaterMark: 64 * 1024,
     ...(partial ? { end: Math.max(0, opts.limitBytes! - 1) } : {}),
   })
   let bytesRead = 0

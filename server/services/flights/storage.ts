@@ -63,3 +63,25 @@ export function insideDataDir(file: string): boolean {
   const rel = path.relative(config().dataDir, path.resolve(file))
   return !rel.startsWith('..') && !path.isAbsolute(rel)
 }
+
+/**
+ * Deletes files in tmp/ older than `maxAgeMs` that no unfinished import still needs (left by a crash mid-upload).
+ * @param inUse paths an unfinished import still reads
+ * @param maxAgeMs minimum age before a file counts as orphaned, ms
+ * @returns how many files were removed
+ */
+export async function removeOrphanTempFiles(inUse: ReadonlySet<string>, maxAgeMs: number): Promise<number> {
+  const dir = tmpDir()
+  const names = await fsp.readdir(dir).catch(() => [] as string[])
+  let removed = 0
+  for (const name of names) {
+    const file = path.join(dir, name)
+    if (inUse.has(file)) continue
+    const st = await fsp.stat(file).catch(() => null)
+    if (st?.isFile() && Date.now() - st.mtimeMs > maxAgeMs) {
+      await removeFiles(file)
+      removed++
+    }
+  }
+  return removed
+}

@@ -32,7 +32,7 @@ describe('RowConverter', () => {
     const out = emptySampleRow()
     expect(c.convert(['500', '51.5', '-1.25', '30', '-70', '99', 'hi'], out)).toBe('ok')
     expect(c.convert(['600', '51.5', '-1.25', '31', '-71', '98', ''], out)).toBe('ok')
-    expect(out).toMatchObject({ tMs: 100, lat: 51.5, lon: -1.25, altM: 31, rssi1Dbm: -71, lq: 98, extras: { note: '' } })
+    expect(out).toMatchObject({ tMs: 100, lat: 51.5, lon: -1.25, altM: 31, rssi1Dbm: -71, lq: 98, extrasJson: '{"note":""}' })
     expect(out.rssi2Dbm).toBeNaN()
   })
   it('skips a leading 0,0 row as no fix, but refuses one mid-flight', () => {
