@@ -73,23 +73,25 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   const model = fit ?? freeSpaceModel(budget)
   const source = fit ? 'fit' : 'free-space'
 
-  // predicted margin per sample; free space does not know the pointing loss, so subtract it there.
-  // The same pass collects time with link and the furthest distance with link held.
-  const predictedMarginDb = new Float32Array(len)
-  const marginDb = new Float32Array(len)
+  // predicted margin is needed only at dropout onsets, so it is computed there, not per sample;
+  // free space does not know the pointing loss, so it is subtracted there
   const tenN = 10 * model.exponent
   const offset = model.interceptDbm + tenN * Math.log10(model.referenceDistanceM) - setup.sensitivityDbm
   const pointingWeight = fit ? 0 : 1
-  const maxGapMs = options.detection?.maxGapMs ?? 1000
   const { log10DistanceM, pointingLossDb, rxBestDbm, distanceM } = geo
+  const predictedMarginDb = (i: number): number =>
+    offset - tenN * log10DistanceM[i]! - pointingWeight * pointingLossDb[i]!
+  // one pass for the measured margin, time with link and the furthest distance with link held
+  const marginDb = new Float32Array(len)
+  const maxGapMs = options.detection?.maxGapMs ?? 1000
   const { inDropout } = detection
   const timeMs = samples.timeMs
+  const sensitivityDbm = setup.sensitivityDbm
   let timeWithLinkMs = 0
   let maxDistanceWithLinkM = -Infinity
   for (let i = 0; i < len; i++) {
-    predictedMarginDb[i] = offset - tenN * log10DistanceM[i]! - pointingWeight * pointingLossDb[i]!
     const p = rxBestDbm[i]!
-    marginDb[i] = p - setup.sensitivityDbm
+    marginDb[i] = p - sensitivityDbm
     if (inDropout[i] === 0) {
       const d = distanceM[i]!
       if (d > maxDistanceWithLinkM && p === p) maxDistanceWithLinkM = d
@@ -104,7 +106,8 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
     timeMs: samples.timeMs,
     rxPowerDbm: geo.rxBestDbm,
     distanceM: geo.distanceM,
-    heightM: geo.heightM,
+    altitudeM: samples.altM,
+    altitudeOffsetM: geo.altitudeOffsetM,
     clearanceFraction: geo.clearanceFraction,
     limitingObstacle: geo.limitingObstacle,
     obstacleLabels: prep.labels,
@@ -144,10 +147,8 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
     },
     series: {
       distanceM: geo.distanceM,
-      heightM: geo.heightM,
       clearanceFraction: geo.clearanceFraction,
       marginDb,
-      predictedMarginDb,
       rxBestDbm: geo.rxBestDbm,
       inDropout: detection.inDropout,
     },

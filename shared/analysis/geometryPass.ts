@@ -1,7 +1,12 @@
 import { createLocalProjection } from '../geo/localProjection.js'
 import { fastLog10 } from '../stats/fastLog10.js'
 import { DEFAULT_MAX_ATTENUATION_DB } from '../antenna/pattern.js'
-import { createClearanceScratch, type PreparedObstacles, worstObstacleClearance } from '../fresnel/obstacles.js'
+import {
+  createClearanceScratch,
+  createObstacleTracker,
+  type PreparedObstacles,
+  trackedObstacleClearance,
+} from '../fresnel/obstacles.js'
 import { groundClearanceFraction } from '../fresnel/groundClearance.js'
 import { REQUIRED_CLEARANCE_FRACTION } from '../fresnel/zone.js'
 import { type ResolvedAntennas } from './validateInput.js'
@@ -11,14 +16,14 @@ import { type FlightInput } from './types.js'
 /** Per-sample geometry and clearance of a flight relative to the ground station. */
 export interface FlightGeometry {
   distanceM: Float64Array
-  /** log10 of the ground distance in metres (for the fit and predictions). */
-  log10DistanceM: Float64Array
-  /** Height above the station ground, m (the altM array itself when altitudes are AGL). */
-  heightM: Float64Array
+  /** log10 of the ground distance in metres (for the fit and predictions; float32 keeps 1e-6 dB). */
+  log10DistanceM: Float32Array
+  /** Subtract from altM to get height above the station ground, m (ground elevation for AMSL, else 0). */
+  altitudeOffsetM: number
   /** Gain lost to pointing against the best boresight gain, dB (all 0 without directional antennas). */
   pointingLossDb: Float32Array
   /** Best diversity antenna, dBm (the rssiDbm array itself without a second antenna). */
-  rxBestDbm: Float64Array
+  rxBestDbm: Float64Array | Float32Array
   /** Worst F1 clearance fraction, capped at CLEARANCE_FRACTION_CAP; NaN without a fix. */
   clearanceFraction: Float32Array
   /** LIMITING_* code or obstacle index of the worst clearance. */
@@ -74,14 +79,13 @@ export function computeGeometry(
   const { samples: s, station } = input
   const len = s.timeMs.length
   const distanceM = new Float64Array(len)
-  const log10DistanceM = new Float64Array(len)
+  const log10DistanceM = new Float32Array(len)
   const amsl = input.altitudeReference === 'AMSL'
   const altM = s.altM
-  const heightM = amsl ? new Float64Array(len) : altM
   const pointingLossDb = new Float32Array(len)
   const r1 = s.rssiDbm
   const r2 = s.rssi2Dbm
-  const rxBestDbm = r2 ? new Float64Array(len) : r1
+  const rxBestDbm = r2 ? new Float32Array(len) : r1
   const clearanceFraction = new Float32Array(len)
   const limitingObstacle = new Int16Array(len)
   const latDeg = s.latDeg
@@ -101,6 +105,7 @@ export function computeGeometry(
   }
   const hasObstacles = prep.circleR.length > 0
   const scratch = createClearanceScratch()
+  const tracker = createObstacleTracker(prep)
   const proj = createLocalProjection(lat0, lon0)
   const { east0, east1, east2, north0, north1, north2 } = proj
   let valid = 0
@@ -119,7 +124,6 @@ export function computeGeometry(
     const lat = latDeg[i]!
     const lon = lonDeg[i]!
     const h = altM[i]! - datumOffset
-    if (amsl) heightM[i] = h
     if (r2) {
       const a = r1[i]!
       const b = r2[i]!
@@ -176,10 +180,10 @@ export function computeGeometry(
       }
       pointingLossDb[i] = best === best ? maxGainDbi - best : NaN
     }
-    let worst = groundClearanceFraction(d, hAnt, h, wavelengthMetres, twoKEarthRadiusM)
+    let worst = groundClearanceFraction(d, hAnt, h, wavelengthMetres, twoKEarthRadiusM, CLEARANCE_FRACTION_CAP)
     let limiting = LIMITING_GROUND
     if (hasObstacles) {
-      const f = worstObstacleClearance(prep, e, no, hAnt, h, wavelengthMetres, twoKEarthRadiusM, scratch)
+      const f = trackedObstacleClearance(tracker, e, no, hAnt, h, wavelengthMetres, twoKEarthRadiusM, scratch)
       if (f < worst) (worst = f), (limiting = scratch.obstacleIndex)
     }
     if (terrain !== null && d > 0) {
@@ -199,7 +203,7 @@ export function computeGeometry(
   return {
     distanceM,
     log10DistanceM,
-    heightM,
+    altitudeOffsetM: datumOffset,
     pointingLossDb,
     rxBestDbm,
     clearanceFraction,

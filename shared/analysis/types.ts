@@ -97,16 +97,12 @@ export interface AnalysisOptions {
 export interface FlightSeries {
   /** Ground distance from the station, m (NaN without a fix). */
   distanceM: Float64Array
-  /** Aircraft height above the station ground, m (the input altM array when altitudes are AGL). */
-  heightM: Float64Array
   /** Worst first-Fresnel-zone clearance fraction (ground, terrain, obstacles), capped at 1 (zone wholly clear). */
   clearanceFraction: Float32Array
   /** Measured margin: best-antenna power minus sensitivity, dB (NaN when not logged). */
   marginDb: Float32Array
-  /** Model-predicted margin, dB. */
-  predictedMarginDb: Float32Array
   /** Best of the diversity antennas, dBm (the input rssiDbm array without a second antenna). */
-  rxBestDbm: Float64Array
+  rxBestDbm: Float64Array | Float32Array
   /** 1 inside a dropout. */
   inDropout: Uint8Array
 }

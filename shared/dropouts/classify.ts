@@ -20,11 +20,13 @@ export const DROPOUT_CAUSE_ORDER: readonly DropoutCause[] = [
 export interface DropoutContext {
   timeMs: Float64Array
   /** Best-antenna received power, dBm (NaN = missing). */
-  rxPowerDbm: Float64Array
+  rxPowerDbm: Float64Array | Float32Array
   /** Ground distance from the station, m. */
   distanceM: Float64Array
-  /** Aircraft height above the station's ground, m. */
-  heightM: Float64Array
+  /** Logged altitude, m; height above the station ground is altitudeM − altitudeOffsetM. */
+  altitudeM: Float64Array
+  /** Station ground elevation for AMSL logs, 0 for AGL logs, m. */
+  altitudeOffsetM: number
   /** Worst F1 clearance fraction (ground, terrain, obstacles). */
   clearanceFraction: Float64Array | Float32Array
   /** Index of the limiting obstacle (−1 ground, −2 terrain, >= 0 into obstacleLabels). */
@@ -32,8 +34,8 @@ export interface DropoutContext {
   obstacleLabels: readonly string[]
   /** Gain lost to antenna pointing against the best boresight gain, dB (>= 0). */
   pointingLossDb: Float64Array | Float32Array
-  /** Model-predicted margin above sensitivity, dB. */
-  predictedMarginDb: Float64Array | Float32Array
+  /** Model-predicted margin above sensitivity, dB: per sample, or computed on demand for a sample index. */
+  predictedMarginDb: Float64Array | Float32Array | ((index: number) => number)
   /** Ground antenna height above its ground, m. */
   antennaHeightM: number
   wavelengthM: number
@@ -118,7 +120,8 @@ export function classifyDropout(
     const p = ctx.pointingLossDb[i]!
     if (p > maxPointing) maxPointing = p
   }
-  const margin = ctx.predictedMarginDb[onset]!
+  const predicted = ctx.predictedMarginDb
+  const margin = typeof predicted === 'function' ? predicted(onset) : predicted[onset]!
   // strongest signal in the look-back window, to tell a sudden fade from a slow decay
   let before = -Infinity
   const tOnset = ctx.timeMs[onset]!
@@ -129,7 +132,7 @@ export function classifyDropout(
   if (event.fromGap && !event.fromSignal && !event.fromLinkQuality) before = -Infinity
   const suddenFade = before >= ctx.sensitivityDbm + fadeMargin
   const d = ctx.distanceM[onset]!
-  const h = ctx.heightM[onset]!
+  const h = ctx.altitudeM[onset]! - ctx.altitudeOffsetM
   let nearestNull: number | null = null
   let nearNull = false
   if (d > 0 && h > 0 && ctx.antennaHeightM > 0) {

@@ -50,7 +50,7 @@ export interface DropoutDetection {
  */
 export function detectDropouts(
   timeMs: Float64Array,
-  rxPowerDbm: Float64Array,
+  rxPowerDbm: Float64Array | Float32Array,
   linkQualityPct: Float64Array | undefined,
   options: DropoutDetectionOptions,
 ): DropoutDetection {

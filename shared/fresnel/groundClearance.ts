@@ -5,7 +5,8 @@
  * @param aircraftHeightM aircraft height above the datum in metres
  * @param wavelengthMetres carrier wavelength in metres, > 0
  * @param twoKEarthRadiusM 2·k·Re in metres, > 0
- * @returns clearance / F1 at the worst point (+Infinity for a zero-length path)
+ * @param cap values at or above this are returned as cap without the square roots (default +Infinity)
+ * @returns min(clearance / F1 at the worst point, cap) (+Infinity for a zero-length path)
  * @throws never: a hot-loop helper, the caller validates once per flight
  */
 export function groundClearanceFraction(
@@ -14,6 +15,7 @@ export function groundClearanceFraction(
   aircraftHeightM: number,
   wavelengthMetres: number,
   twoKEarthRadiusM: number,
+  cap = Infinity,
 ): number {
   if (!(pathLengthM > 0)) return Infinity
   const hg = groundAntennaHeightM
@@ -27,7 +29,15 @@ export function groundClearanceFraction(
   if (tStar < 0.01) tStar = 0.01
   else if (tStar > 0.99) tStar = 0.99
   const w1 = tStar * (1 - tStar)
-  const f1 = (hg + dh * tStar - bulgeScale * w1) / Math.sqrt(lamD * w1)
-  const f2 = (hg + dh * 0.5 - bulgeScale * 0.25) / Math.sqrt(lamD * 0.25)
-  return f1 < f2 ? f1 : f2
+  const num1 = hg + dh * tStar - bulgeScale * w1
+  const num2 = hg + dh * 0.5 - bulgeScale * 0.25
+  // both points clear by cap·F1 or more: compare squares and skip the roots and the division
+  const capSq = cap * cap
+  if (cap > 0 && num1 > 0 && num2 > 0 && num1 * num1 >= capSq * lamD * w1 && num2 * num2 >= capSq * lamD * 0.25) {
+    return cap
+  }
+  const root1 = Math.sqrt(lamD * w1)
+  const root2 = Math.sqrt(lamD * 0.25)
+  // compare num1/root1 with num2/root2 by cross-multiplying (roots > 0): one division instead of two
+  return num1 * root2 < num2 * root1 ? num1 / root1 : num2 / root2
 }

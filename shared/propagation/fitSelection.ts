@@ -55,7 +55,7 @@ export interface FitSelectionContext {
  */
 export function selectFitSamples(
   distanceM: Float64Array,
-  rxPowerDbm: Float64Array,
+  rxPowerDbm: Float64Array | Float32Array,
   rule: FitSelectionRule = DEFAULT_FIT_SELECTION_RULE,
   context: FitSelectionContext = {},
 ): FitSelection {

@@ -13,7 +13,8 @@ function context(): DropoutContext {
     timeMs: Float64Array.from({ length: N }, (_, i) => i * 100),
     rxPowerDbm: new Float64Array(N).fill(-70),
     distanceM: new Float64Array(N).fill(800),
-    heightM: new Float64Array(N).fill(30),
+    altitudeM: new Float64Array(N).fill(430),
+    altitudeOffsetM: 400,
     clearanceFraction: new Float64Array(N).fill(1),
     limitingObstacle: new Int32Array(N).fill(-3),
     obstacleLabels: ['barn'],
@@ -45,7 +46,7 @@ describe('classifyDropout', () => {
   })
   it('blames range when the model leaves less than the fade margin', () => {
     const ctx = context()
-    ctx.predictedMarginDb.fill(4)
+    ctx.predictedMarginDb = new Float64Array(N).fill(4)
     ctx.rxPowerDbm.fill(-92)
     const d = classifyDropout(event(20, 22), ctx, { fadeMarginDb: 10 })
     expect(d.cause).toBe('range')
@@ -66,6 +67,7 @@ describe('classifyDropout', () => {
     const d = classifyDropout(event(20, 22), ctx, { fadeMarginDb: 10 })
     expect(d.evidence.nearNull).toBe(true)
     expect(d.evidence.nearestNullM).toBeCloseTo(dNull, 6)
+    expect(d.evidence.heightM).toBe(30)
     expect(d.cause).toBe('reflection')
   })
   it('calls a bare telemetry gap with nothing else wrong a gap', () =>
@@ -76,11 +78,16 @@ describe('classifyDropout', () => {
     ctx.distanceM.fill(2900)
     expect(classifyDropout(event(20, 22), ctx, { fadeMarginDb: 10 }).cause).toBe('unexplained')
   })
+  it('accepts the predicted margin as a function of the sample index', () => {
+    const ctx = context()
+    ctx.predictedMarginDb = (i: number) => (i >= 20 ? 3 : 25)
+    expect(classifyDropout(event(20, 22), ctx, { fadeMarginDb: 10 }).evidence.predictedMarginDb).toBe(3)
+  })
   it('lists every matching cause in preference order', () => {
     const ctx = context()
     ctx.clearanceFraction.fill(0.1)
     ctx.pointingLossDb.fill(10)
-    ctx.predictedMarginDb.fill(0)
+    ctx.predictedMarginDb = new Float64Array(N).fill(0)
     expect(classifyDropout(event(20, 22), ctx, { fadeMarginDb: 10 }).causes).toEqual(['obstruction', 'beam', 'range'])
   })
   it('rejects indices outside the arrays', () =>

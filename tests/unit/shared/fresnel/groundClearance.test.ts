@@ -31,3 +31,15 @@ describe('groundClearanceFraction', () => {
   })
   it('is +Infinity for a zero-length path', () => expect(groundClearanceFraction(0, 2, 10, 0.1, twoKR)).toBe(Infinity))
 })
+
+describe('groundClearanceFraction with a cap', () => {
+  it('returns the cap when the path is clearer than that and the exact value below it', () => {
+    const lam = wavelengthM(2.4e9)
+    const exactHigh = groundClearanceFraction(1000, 2, 120, lam, twoKR)
+    const exactLow = groundClearanceFraction(3000, 2, 8, lam, twoKR)
+    expect(exactHigh).toBeGreaterThan(1)
+    expect(groundClearanceFraction(1000, 2, 120, lam, twoKR, 1)).toBe(1)
+    expect(exactLow).toBeLessThan(1)
+    expect(groundClearanceFraction(3000, 2, 8, lam, twoKR, 1)).toBe(exactLow)
+  })
+})

@@ -3,8 +3,10 @@ import { createLocalProjection, projectToLocal } from '../../../../shared/geo/lo
 import { lineOfSightClearance } from '../../../../shared/fresnel/clearance.js'
 import {
   createClearanceScratch,
+  createObstacleTracker,
   type Obstacle,
   prepareObstacles,
+  trackedObstacleClearance,
   worstObstacleClearance,
 } from '../../../../shared/fresnel/obstacles.js'
 import { wavelengthM } from '../../../../shared/rf/wavelength.js'
@@ -73,5 +75,41 @@ describe('worstObstacleClearance', () => {
     const want = lineOfSightClearance({ freqHz: f, groundAntennaHeightM: 2, aircraftHeightM: 22, pathLengthM: 1000 }, 400, 15)
     expect(got).toBeCloseTo(want.clearanceFraction, 5)
     expect(got).toBeLessThan(0)
+  })
+})
+
+describe('trackedObstacleClearance', () => {
+  it('gives the same fractions as worstObstacleClearance along a wandering flight', () => {
+    const obstacles: Obstacle[] = [
+      { kind: 'point', label: 'mast', heightM: 30, radiusM: 2, position: at(150, 400) },
+      { kind: 'line', label: 'hedge', heightM: 6, path: [at(-900, -300), at(200, -350), at(900, -200)] },
+      { kind: 'polygon', label: 'barn', heightM: 12, ring: [at(300, 300), at(360, 300), at(360, 340), at(300, 340)] },
+    ]
+    const prep = prepareObstacles(obstacles, station, 0)
+    const tracker = createObstacleTracker(prep)
+    const a = createClearanceScratch()
+    const b = createClearanceScratch()
+    let seed = 4242
+    const rnd = () => (seed = (seed * 16807) % 2147483647) / 2147483647
+    let x = 50
+    let y = 50
+    let heading = 0
+    let compared = 0
+    for (let i = 0; i < 20_000; i++) {
+      heading += (rnd() - 0.5) * 0.2
+      x += 3 * Math.sin(heading)
+      y += 3 * Math.cos(heading)
+      if (Math.hypot(x, y) > 1500) heading += Math.PI
+      const h = 10 + 40 * rnd()
+      const slow = worstObstacleClearance(prep, x, y, 2, h, lambda, twoKR, a)
+      const fast = trackedObstacleClearance(tracker, x, y, 2, h, lambda, twoKR, b)
+      // identical where the zone is obstructed; both at least 1 (zone clear) elsewhere
+      if (slow < 1 || fast < 1) {
+        expect(fast).toBeCloseTo(slow, 12)
+        expect(b.obstacleIndex).toBe(a.obstacleIndex)
+        compared++
+      } else expect(Math.min(slow, fast)).toBeGreaterThanOrEqual(1)
+    }
+    expect(compared).toBeGreaterThan(100)
   })
 })
