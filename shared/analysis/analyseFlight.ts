@@ -46,6 +46,17 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
     floorDbm,
   })
 
+  // per antenna: what each diversity branch alone would have lost (the link itself uses the best one)
+  const antennaSeries = samples.rssi2Dbm ? [samples.rssiDbm, samples.rssi2Dbm] : [samples.rssiDbm]
+  const perAntenna = antennaSeries.map((series, index) => {
+    const events = samples.rssi2Dbm
+      ? detectDropouts(samples.timeMs, series, samples.lqPct, { ...options.detection, sensitivityDbm: setup.sensitivityDbm, floorDbm }).events
+      : detection.events
+    let timeInDropoutMs = 0
+    for (const e of events) timeInDropoutMs += e.durationMs
+    return { index, dropoutCount: events.length, timeInDropoutMs }
+  })
+
   const rule = { ...DEFAULT_FIT_SELECTION_RULE, floorDbm, ...options.fitSelection }
   const selection = selectFitSamples(geo.distanceM, geo.rxBestDbm, rule, {
     inDropout: detection.inDropout,
@@ -131,6 +142,7 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
       fitSelection: { rule: selection.rule, includedCount: selection.includedCount, excluded: selection.excluded },
       model: { source, interceptDbm: model.interceptDbm, exponent: model.exponent, referenceDistanceM: model.referenceDistanceM },
       dropouts,
+      antennas: perAntenna,
       clearance: summariseClearance(geo, prep.labels),
       summary: {
         durationMs: len > 0 ? samples.timeMs[len - 1]! - samples.timeMs[0]! : 0,

@@ -124,6 +124,8 @@ export interface FlightAnalysis {
   /** Model used for predicted margins and ranges. */
   model: { source: 'fit' | 'free-space'; interceptDbm: number; exponent: number; referenceDistanceM: number }
   dropouts: ClassifiedDropout[]
+  /** Diversity: dropouts each receive antenna alone would have had (same thresholds); one entry per antenna. */
+  antennas: Array<{ index: number; dropoutCount: number; timeInDropoutMs: number }>
   clearance: {
     minFraction: number | null
     samplesBelowRule: number

@@ -144,6 +144,16 @@ describe('analyseFlight', () => {
     expect(series.rxBestDbm[10]).toBeCloseTo(input.samples.rssiDbm[10]! + 6, 4)
     expect(series.rxBestDbm[11]).toBeCloseTo(input.samples.rssiDbm[11]!, 4)
   })
+  it('reports what each diversity antenna alone would have lost', () => {
+    const input = radialFlight({ count: 400, sigmaDb: 0.5, maxM: 1000 })
+    input.samples.rssi2Dbm = input.samples.rssiDbm.slice()
+    input.samples.rssi2Dbm.fill(-130, 100, 120)
+    input.setup.rxAntennas = [{ gainDbi: 2, kind: 'omni' }, { gainDbi: 2, kind: 'omni' }]
+    const { result } = analyseFlight(input)
+    expect(result.dropouts).toHaveLength(0)
+    expect(result.antennas.map((a) => a.dropoutCount)).toEqual([0, 1])
+    expect(result.antennas[1]!.timeInDropoutMs).toBe(2000)
+  })
   it('turns AMSL altitudes into heights above the station ground', () => {
     const input = radialFlight({ count: 50, heightM: 460 })
     input.altitudeReference = 'AMSL'
