@@ -79,8 +79,10 @@ export function getFlightStatus(id: number): Promise<FlightStatusDto> {
   return apiGet(`/flights/${id}/status`)
 }
 
-export function getSamples(id: number, fromMs: number, toMs: number, maxPoints: number): Promise<SamplesDto> {
-  return apiGet(`/flights/${id}/samples${query({ fromMs: Math.floor(fromMs), toMs: Math.ceil(toMs), maxPoints })}`)
+/** Samples of [fromMs, toMs] (toMs undefined: to the end), decimated to at most maxPoints. */
+export function getSamples(id: number, fromMs: number, toMs: number | undefined, maxPoints: number): Promise<SamplesDto> {
+  const to = toMs === undefined ? undefined : Math.ceil(toMs)
+  return apiGet(`/flights/${id}/samples${query({ fromMs: Math.floor(fromMs), toMs: to, maxPoints })}`)
 }
 
 /** Sends the log (and, for GPX, an optional separate signal log) with the form fields; 202 {id, status}. */

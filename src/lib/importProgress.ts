@@ -33,7 +33,11 @@ export function importProgress(sentFraction: number, status: FlightStatusDto | n
     case 'analysing':
       return { percent: SEND_SHARE + IMPORT_SHARE + 5, label: 'Analysing the flight: fit, dropouts, Fresnel clearance…', state: 'active' }
     case 'ready':
-      return { percent: 100, label: 'Ready', state: 'success' }
+      return {
+        percent: 100,
+        label: p && p.rowsDone > 0 ? `Ready: ${p.rowsDone.toLocaleString('en-GB')} rows stored and analysed` : 'Ready',
+        state: 'success',
+      }
     case 'failed':
       return { percent: 100, label: status.failure?.message ?? 'The import failed.', state: 'exception' }
   }

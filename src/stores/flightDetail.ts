@@ -48,15 +48,15 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
     loading.value = true
     const seq = ++requestSeq
     try {
+      const maxPoints = pointsForWidth(widthPx)
+      // the overview does not need the flight first: ask for both at once (the whole flight, to its end)
+      const overviewPending = flightsApi.getSamples(id, 0, undefined, maxPoints)
+      overviewPending.catch(() => undefined)
       const f = await flightsApi.getFlight(id)
-      const durationMs = f.analysis?.summary.durationMs ?? 0
-      const req: SampleRequest = { fromMs: 0, toMs: Math.max(1, durationMs), maxPoints: pointsForWidth(widthPx) }
-      const [c, s, o] = await Promise.all([
-        getCourse(f.courseId),
-        getSetup(f.setupId),
-        flightsApi.getSamples(id, req.fromMs, req.toMs, req.maxPoints),
-      ])
+      const [c, s, o] = await Promise.all([getCourse(f.courseId), getSetup(f.setupId), overviewPending])
       if (seq !== requestSeq) return
+      const lastMs = o.tMs[o.tMs.length - 1] ?? 0
+      const req: SampleRequest = { fromMs: 0, toMs: Math.max(1, lastMs, f.analysis?.summary.durationMs ?? 0), maxPoints }
       flight.value = f
       course.value = c
       setup.value = s

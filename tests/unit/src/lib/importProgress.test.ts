@@ -14,6 +14,10 @@ describe('importProgress', () => {
   })
   it('reaches 100 % and success when ready', () =>
     expect(importProgress(1, { ...base, status: 'ready' })).toMatchObject({ percent: 100, state: 'success' }))
+  it('says how many rows were stored when ready', () =>
+    expect(importProgress(1, { ...base, status: 'ready', progress: { bytesDone: 9, bytesTotal: 9, rowsDone: 3640 } }).label).toBe(
+      'Ready: 3,640 rows stored and analysed',
+    ))
   it('shows the failure reason', () =>
     expect(importProgress(1, { ...base, status: 'failed', failure: { status: 422, code: 'UNPROCESSABLE', message: 'Too many bad rows' } })).toMatchObject({
       label: 'Too many bad rows',
