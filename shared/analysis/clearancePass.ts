@@ -1,9 +1,11 @@
 import { meridianRadiusM, primeVerticalRadiusM } from '../geo/wgs84.js'
 import { type GroundStation, type TerrainSampler } from './types.js'
 
-/** Limiting-obstacle codes besides obstacle indices. */
+/** Limiting code: flat ground (with earth bulge) limits the clearance. */
 export const LIMITING_GROUND = -1
+/** Limiting code: the terrain sampler's ground limits the clearance. */
 export const LIMITING_TERRAIN = -2
+/** Limiting code: nothing limits it (zone clear, or no fix). */
 export const LIMITING_NONE = -3
 
 /** Stored clearance fractions are capped here: at 1 the first Fresnel zone is wholly clear. */

@@ -1,12 +1,8 @@
 import { createLocalProjection } from '../geo/localProjection.js'
 import { fastLog10 } from '../stats/fastLog10.js'
 import { DEFAULT_MAX_ATTENUATION_DB } from '../antenna/pattern.js'
-import {
-  createClearanceScratch,
-  createObstacleTracker,
-  type PreparedObstacles,
-  trackedObstacleClearance,
-} from '../fresnel/obstacles.js'
+import { type PreparedObstacles } from '../fresnel/obstacles.js'
+import { createClearanceScratch, createObstacleTracker, trackedObstacleClearance } from '../fresnel/obstacleClearance.js'
 import { groundClearanceFraction } from '../fresnel/groundClearance.js'
 import { REQUIRED_CLEARANCE_FRACTION } from '../fresnel/zone.js'
 import { type ResolvedAntennas } from './validateInput.js'

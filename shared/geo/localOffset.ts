@@ -81,6 +81,7 @@ export function groundDistanceM(lat1Deg: number, lon1Deg: number, lat2Deg: numbe
  * @param eastM output east offsets in metres, same length
  * @param northM output north offsets in metres, same length
  * @param distanceM output ground distances in metres, same length
+ * @returns nothing; the three output arrays are filled in place
  * @throws RangeError when the origin is out of range or the array lengths differ
  */
 export function fillLocalOffsets(
