@@ -175,18 +175,13 @@ export class RowConverter {
     const s = this.slot
     const m = this.mapping
     const dc = m.decimalComma
-    const keep = (slot: Slot | undefined, asIs: boolean): string | null => {
-      if (!slot || !asIs) return null
-      const cell = fields[slot.index]!
-      return isPlainNumberText(cell, dc) ? cell : null
-    }
-    t.lat = keep(s.lat, true)
-    t.lon = keep(s.lon, true)
-    t.altM = keep(s.alt, m.altUnit === 'm' && m.altReference === 'agl')
-    t.rssi1Dbm = keep(s.rssi1, m.signalUnit === 'dbm')
-    t.rssi2Dbm = keep(s.rssi2, m.signalUnit === 'dbm')
-    t.lq = keep(s.lq, true)
-    t.snr = keep(s.snr, true)
+    t.lat = keepText(fields, s.lat, true, dc)
+    t.lon = keepText(fields, s.lon, true, dc)
+    t.altM = keepText(fields, s.alt, m.altUnit === 'm' && m.altReference === 'agl', dc)
+    t.rssi1Dbm = keepText(fields, s.rssi1, m.signalUnit === 'dbm', dc)
+    t.rssi2Dbm = keepText(fields, s.rssi2, m.signalUnit === 'dbm', dc)
+    t.lq = keepText(fields, s.lq, true, dc)
+    t.snr = keepText(fields, s.snr, true, dc)
   }
 
   private signal(cell: string): number {
@@ -217,6 +212,13 @@ export class RowConverter {
     for (let i = 0; i < this.extras.length; i++) json += this.extraKeys[i]! + JSON.stringify(fields[this.extras[i]!.index] ?? '')
     return json + '}'
   }
+}
+
+// Module-level (not a closure per row): this runs for every cell of every row.
+function keepText(fields: readonly string[], slot: Slot | undefined, asIs: boolean, dc: boolean): string | null {
+  if (!slot || !asIs) return null
+  const cell = fields[slot.index]!
+  return isPlainNumberText(cell, dc) ? cell : null
 }
 
 function problem(slot: Slot, fields: readonly string[], reason: string): RowProblem {

@@ -171,6 +171,17 @@ describe('POST /api/flights (good fixtures)', () => {
     expect(rows[5]!.extras).toEqual({ note: 'turn, north' })
   })
 
+  it('stores extra text with backslashes, tabs and quotes unchanged', async () => {
+    const m = JSON.parse(mappingText('comma.csv')) as ColumnMapping
+    const rows = Array.from({ length: 30 }, (_, i) => `${i * 100},52.05,-1.3,50,-70,90,5,"C:\\log\t""${i}"""`)
+    const text = ['time_ms,lat,lon,alt_m,rssi_dbm,lq,snr,sats', ...rows].join('\n')
+    const res = await upload(s, Buffer.from(text), { courseId, setupId, mapping: JSON.stringify(m) })
+    expect(res.status, JSON.stringify(res.body)).toBe(202)
+    expect((await waitForStatus(s, res.body.id)).status).toBe('ready')
+    const stored = await storedSamples(res.body.id)
+    expect(stored[7]!.extras).toEqual({ sats: 'C:\\log\t"7"' })
+  })
+
   it('keeps the original compressed and the temp folder empty', async () => {
     const before = await storedCounts()
     const res = await upload(s, path.join(LOGS, 'comma.csv'), { courseId, setupId, mapping: mappingText('comma.csv') })

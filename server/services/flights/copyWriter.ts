@@ -13,15 +13,25 @@ function num(v: number): string {
   return v === v ? String(v) : '\\N'
 }
 
-/** COPY text-format escaping: backslash first, then the three characters COPY treats as separators. */
-function copyText(s: string): string {
-  return /[\\\t\n\r]/.test(s) ? s.replace(/\\/g, '\\\\').replace(/\t/g, '\\t').replace(/\n/g, '\\n').replace(/\r/g, '\\r') : s
+/** A distance to 0.1 m as text through integers (formatting integers is much cheaper than doubles). */
+function decimetres(distM: number): string {
+  if (!(distM >= 0) || distM > 2e8) return num(distM)
+  const dm = Math.round(distM * 10)
+  return `${(dm - (dm % 10)) / 10}.${dm % 10}`
+}
+
+/**
+ * COPY text-format escaping for JSON text: JSON.stringify already writes tab, newline and carriage return as escapes,
+ * so only its backslashes need doubling.
+ */
+function copyJson(json: string): string {
+  return json.indexOf('\\') < 0 ? json : json.replace(/\\/g, '\\\\')
 }
 
 /** Writes sample rows as COPY text in batches, honouring the stream's backpressure. */
 export class CopyRowWriter {
-  private parts: string[] = []
-  private chars = 0
+  // One growing string: V8 keeps it as a rope and flattens it once, when it is written.
+  private buf = ''
   private readonly prefix: string
 
   constructor(
@@ -34,7 +44,7 @@ export class CopyRowWriter {
   /** Queues one row; call flush() once per input chunk. */
   add(seq: number, r: SampleRow, distM: number): void {
     const x = r.text
-    const line =
+    this.buf +=
       this.prefix +
       seq +
       '\t' +
@@ -54,20 +64,17 @@ export class CopyRowWriter {
       '\t' +
       (x.snr ?? num(r.snr)) +
       '\t' +
-      num(Math.round(distM * 100) / 100) +
+      decimetres(distM) +
       '\t' +
-      (r.extrasJson === null ? '\\N' : copyText(r.extrasJson)) +
+      (r.extrasJson === null ? '\\N' : copyJson(r.extrasJson)) +
       '\n'
-    this.parts.push(line)
-    this.chars += line.length
   }
 
   /** Writes the queued rows when enough have gathered (or always, when forced), waiting if the stream is full. */
   async flush(force = false): Promise<void> {
-    if (!this.parts.length || (!force && this.chars < FLUSH_CHARS)) return
-    const ok = this.stream.write(this.parts.join(''))
-    this.parts = []
-    this.chars = 0
+    if (!this.buf.length || (!force && this.buf.length < FLUSH_CHARS)) return
+    const ok = this.stream.write(this.buf)
+    this.buf = ''
     if (!ok) await once(this.stream, 'drain')
   }
 
