@@ -50,7 +50,13 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   const antennaSeries = samples.rssi2Dbm ? [samples.rssiDbm, samples.rssi2Dbm] : [samples.rssiDbm]
   const perAntenna = antennaSeries.map((series, index) => {
     const events = samples.rssi2Dbm
-      ? detectDropouts(samples.timeMs, series, samples.lqPct, { ...options.detection, sensitivityDbm: setup.sensitivityDbm, floorDbm }).events
+      ? // link quality and telemetry gaps belong to the link, not to one antenna: signal only here
+        detectDropouts(samples.timeMs, series, undefined, {
+          ...options.detection,
+          maxGapMs: Number.MAX_VALUE,
+          sensitivityDbm: setup.sensitivityDbm,
+          floorDbm,
+        }).events
       : detection.events
     let timeInDropoutMs = 0
     for (const e of events) timeInDropoutMs += e.durationMs

@@ -124,7 +124,7 @@ export interface FlightAnalysis {
   /** Model used for predicted margins and ranges. */
   model: { source: 'fit' | 'free-space'; interceptDbm: number; exponent: number; referenceDistanceM: number }
   dropouts: ClassifiedDropout[]
-  /** Diversity: dropouts each receive antenna alone would have had (same thresholds); one entry per antenna. */
+  /** Diversity: signal dropouts each receive antenna alone would have had (same thresholds, no LQ or gaps). */
   antennas: Array<{ index: number; dropoutCount: number; timeInDropoutMs: number }>
   clearance: {
     minFraction: number | null
