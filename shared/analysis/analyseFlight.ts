@@ -100,7 +100,7 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
     offset - tenN * log10DistanceM[i]! - pointingWeight * pointingLossDb[i]!
   // one pass for the measured margin, time with link and the furthest distance with link held
   const marginDb = new Float32Array(len)
-  const maxGapMs = options.detection?.maxGapMs ?? 1000
+  const maxGapMs = detection.gapThresholdMs
   const { inDropout } = detection
   const timeMs = samples.timeMs
   const sensitivityDbm = setup.sensitivityDbm

@@ -88,6 +88,7 @@ function nullIndexAt(distanceM: number, heightM: number, ctx: DropoutContext): n
 /**
  * Classifies a dropout by the first matching rule: obstruction (F1 clearance < 60 %), beam (pointing loss >= 3 dB),
  * range (model margin < fade margin), reflection (sudden fade or two-ray null while in range), gap, unexplained.
+ * A gap-only event (no weak signal or link quality inside it) is a `gap` first; rules that also match stay in `causes`.
  * @param event detected dropout with sample indices into ctx arrays
  * @param ctx per-sample context of the flight
  * @param options fadeMarginDb >= 0 and optional thresholds
@@ -150,7 +151,9 @@ export function classifyDropout(
   if (Number.isFinite(margin) && !inRange) causes.push('range')
   const gapOnly = event.fromGap && !event.fromSignal && !event.fromLinkQuality
   if (inRange && !gapOnly && (suddenFade || nearNull)) causes.push('reflection')
-  if (event.fromGap) causes.push('gap')
+  // missing telemetry is the fact of a gap-only event; geometry at its edges only says what may have contributed
+  if (gapOnly) causes.unshift('gap')
+  else if (event.fromGap) causes.push('gap')
   if (causes.length === 0) causes.push('unexplained')
   const label =
     limiting >= 0 ? (ctx.obstacleLabels[limiting] ?? null) : limiting === -1 ? 'ground' : limiting === -2 ? 'terrain' : null

@@ -1,4 +1,5 @@
 import { requireFinite, requireInRange, requireNonNegative, requirePositive } from '../units/guards.js'
+import { medianOf } from '../stats/median.js'
 
 /** Thresholds and timing for dropout detection. */
 export interface DropoutDetectionOptions {
@@ -8,8 +9,12 @@ export interface DropoutDetectionOptions {
   floorDbm: number | null
   /** Link quality below this share counts as lost, percent in [0, 100] (default 50). */
   minLinkQualityPct?: number
-  /** A time step longer than this is a telemetry gap, ms (default 1000). */
+  /** A time step longer than this is a telemetry gap, ms; when absent it is derived from the log (see gapThresholdMs). */
   maxGapMs?: number
+  /** Derived threshold: this many typical frame intervals (median step), > 0 (default 5). */
+  gapStepFactor?: number
+  /** Derived threshold never falls below this, ms, > 0 (default 1000). */
+  minGapMs?: number
   /** Events shorter than this are dropped after merging, ms (default 0). */
   minDurationMs?: number
   /** Events closer than this are merged, ms (default 1000). */
@@ -37,6 +42,52 @@ export interface DropoutDetection {
   events: DetectedDropout[]
   /** 1 where a sample lies inside an event. */
   inDropout: Uint8Array
+  /** Time step above which a gap was reported, ms (see gapThresholdMs). */
+  gapThresholdMs: number
+}
+
+/** Steps looked at for the typical frame interval: enough for a stable median, bounded for million-row logs. */
+const STEP_PROBES = 4097
+
+/**
+ * Typical frame interval of a log: the median of up to 4097 evenly spread time steps (NaN with fewer than 2 samples).
+ * @param timeMs sample times, ms, non-decreasing
+ * @returns median step, ms
+ */
+export function typicalStepMs(timeMs: Float64Array): number {
+  const steps = timeMs.length - 1
+  if (steps < 1) return NaN
+  const probes = Math.min(steps, STEP_PROBES)
+  const stride = steps / probes
+  const dt = new Float64Array(probes)
+  for (let k = 0; k < probes; k++) {
+    const i = Math.floor(k * stride) + 1
+    dt[k] = timeMs[i]! - timeMs[i - 1]!
+  }
+  try {
+    return medianOf(dt)
+  } catch {
+    return NaN
+  }
+}
+
+/**
+ * Time step above which a log counts as having a telemetry gap: options.maxGapMs when given, else
+ * max(minGapMs, gapStepFactor × typical step), so a 1 Hz log is not all gaps and a 50 Hz log's 2 s hole is one.
+ * @param timeMs sample times, ms, non-decreasing
+ * @param options maxGapMs > 0 (fixed), or gapStepFactor > 0 (default 5) and minGapMs > 0 (default 1000)
+ * @returns threshold, ms
+ * @throws RangeError when an option is out of range
+ */
+export function gapThresholdMs(
+  timeMs: Float64Array,
+  options: Pick<DropoutDetectionOptions, 'maxGapMs' | 'gapStepFactor' | 'minGapMs'> = {},
+): number {
+  if (options.maxGapMs !== undefined) return requirePositive('maxGapMs', options.maxGapMs)
+  const factor = requirePositive('gapStepFactor', options.gapStepFactor ?? 5)
+  const floor = requirePositive('minGapMs', options.minGapMs ?? 1000)
+  const step = typicalStepMs(timeMs)
+  return step === step && factor * step > floor ? factor * step : floor
 }
 
 /**
@@ -44,7 +95,7 @@ export interface DropoutDetection {
  * @param timeMs sample times in ms, finite and non-decreasing
  * @param rxPowerDbm received power per sample in dBm (best antenna); NaN means not logged and is not a loss by itself
  * @param linkQualityPct link quality per sample in percent, or undefined; NaN entries are ignored
- * @param options sensitivity/floor in dBm, minLinkQualityPct [0, 100], maxGapMs > 0, minDurationMs >= 0, mergeWithinMs >= 0
+ * @param options sensitivity/floor in dBm, minLinkQualityPct [0, 100], gap threshold (gapThresholdMs), minDurationMs >= 0, mergeWithinMs >= 0
  * @returns events in time order and the membership mask
  * @throws RangeError when lengths differ, times go backwards or an option is out of range
  */
@@ -62,7 +113,7 @@ export function detectDropouts(
   const sens = requireFinite('sensitivityDbm', options.sensitivityDbm)
   const floor = options.floorDbm === null ? -Infinity : requireFinite('floorDbm', options.floorDbm)
   const minLq = requireInRange('minLinkQualityPct', options.minLinkQualityPct ?? 50, 0, 100)
-  const maxGap = requirePositive('maxGapMs', options.maxGapMs ?? 1000)
+  const maxGap = gapThresholdMs(timeMs, options)
   const minDur = requireNonNegative('minDurationMs', options.minDurationMs ?? 0)
   const mergeWithin = requireNonNegative('mergeWithinMs', options.mergeWithinMs ?? 1000)
   const raw: DetectedDropout[] = []
@@ -117,7 +168,7 @@ export function detectDropouts(
     kept.push(e)
     inDropout.fill(1, e.startIndex, e.endIndex + 1)
   }
-  return { events: kept, inDropout }
+  return { events: kept, inDropout, gapThresholdMs: maxGap }
 }
 
 function event(

@@ -3,6 +3,7 @@ import { analyseFlight, METHOD_VERSION } from '../../../../shared/analysis/analy
 import { type FlightInput } from '../../../../shared/analysis/types.js'
 import { createLocalProjection } from '../../../../shared/geo/localProjection.js'
 import { freeSpaceLossDb } from '../../../../shared/rf/freeSpaceLoss.js'
+import { generateFlight, type GeneratorCourse, type GeneratorSetup } from '../../../../shared/demo/generateFlight.js'
 
 const station = { latDeg: 47.4, lonDeg: 8.5, antennaHeightM: 2, groundElevM: 400 }
 const proj = createLocalProjection(station.latDeg, station.lonDeg)
@@ -196,4 +197,61 @@ describe('analyseFlight', () => {
     expect(() => analyseFlight(input)).toThrow(/azimuthDeg/)
   })
   it('rejects a negative fade margin', () => expect(() => analyseFlight(radialFlight({ count: 20 }), { fadeMarginDb: -1 })).toThrow(/fadeMarginDb/))
+})
+
+// The demo course: a tree line about 600 m out on a route east-north-east, a gap cut out of the log at 37 %.
+const demoCourse: GeneratorCourse = {
+  stationLatDeg: 52.8712,
+  stationLonDeg: -0.0563,
+  antennaHeightM: 2,
+  routeLonLat: [[-0.0549, 52.8717], [-0.0408, 52.8766], [-0.0254, 52.882]],
+  obstacles: [
+    { kind: 'line', label: 'Tree line', heightM: 14, path: [{ latDeg: 52.87507, lonDeg: -0.04972 }, { latDeg: 52.87273, lonDeg: -0.04748 }] },
+  ],
+}
+const demoOmni = { kind: 'omni' as const, gainDbi: 2.15, beamwidthDeg: null, azimuthDeg: null, elevationDeg: null }
+const demoPatch = { kind: 'directional' as const, gainDbi: 8, beamwidthDeg: null, azimuthDeg: 60, elevationDeg: 5 }
+
+function generatedInput(rx: GeneratorSetup['rxAntennas'], txPowerDbm: number, truthN = 2.6, gaps = [{ atFraction: 0.37, durationMs: 2400 }]): FlightInput {
+  const setup: GeneratorSetup = { freqMHz: 868, txPowerDbm, txGainDbi: 2.15, rxAntennas: rx, cableLossDb: 1, sensitivityDbm: -112, floorDbm: -130 }
+  const f = generateFlight(demoCourse, setup, {
+    seed: 105,
+    profile: { speedMps: 15, cruiseAltM: 60, sampleHz: 10 },
+    truth: { exponent: truthN, shadowSigmaDb: 4, shadowFieldSeed: 20261202, flightShadowSigmaDb: 1.5, tailShadowDb: 5 },
+    gaps,
+  })
+  return {
+    samples: { timeMs: f.timeMs, latDeg: f.latDeg, lonDeg: f.lonDeg, altM: f.altM, rssiDbm: f.rssiDbm[0]!, ...(f.rssiDbm[1] ? { rssi2Dbm: f.rssiDbm[1] } : {}), lqPct: f.lqPct },
+    station: { latDeg: demoCourse.stationLatDeg, lonDeg: demoCourse.stationLonDeg, antennaHeightM: 2, groundElevM: 2 },
+    altitudeReference: 'AGL',
+    setup: {
+      freqMHz: 868, txPowerDbm, txGainDbi: 2.15, cableLossDb: 1, sensitivityDbm: -112, floorDbm: -130,
+      rxAntennas: rx.map((a) => ({ kind: a.kind, gainDbi: a.gainDbi, ...(a.azimuthDeg !== null ? { azimuthDeg: a.azimuthDeg, elevationDeg: a.elevationDeg ?? 0 } : {}) })),
+    },
+    obstacles: [...demoCourse.obstacles],
+  }
+}
+
+describe('analyseFlight on generated demo flights', () => {
+  // 25 mW diversity as in the demo; the single omni at 250 mW so that no fade merges into the gap
+  for (const [name, rx, txDbm] of [['diversity', [demoOmni, demoPatch], 13.98], ['single-antenna', [demoOmni], 23.98]] as const) {
+    it(`reports the 2.4 s telemetry gap of a ${name} flight as a gap dropout with its evidence`, () => {
+      const input = generatedInput([...rx], txDbm)
+      const t = input.samples.timeMs
+      let at = 1
+      for (let i = 1; i < t.length; i++) if (t[i]! - t[i - 1]! > t[at]! - t[at - 1]!) at = i
+      expect(t[at]! - t[at - 1]!).toBe(2500)
+      const { result } = analyseFlight(input)
+      const gap = result.dropouts.find((d) => d.fromGap)
+      expect(gap).toBeDefined()
+      expect(gap!.startMs).toBeLessThanOrEqual(t[at - 1]!)
+      expect(gap!.endMs).toBeGreaterThanOrEqual(t[at]!)
+      expect(gap).toMatchObject({ cause: 'gap', fromSignal: false, fromLinkQuality: false })
+      // the geometry at the gap stays on record: about 1.8 km out, 60 m up, the tree line near the first zone
+      expect(gap!.evidence.distanceM).toBeGreaterThan(1000)
+      expect(gap!.evidence.heightM).toBeGreaterThan(50)
+      expect(gap!.evidence.minClearanceFraction).not.toBeNull()
+      expect(result.summary.dropoutsByCause.gap).toBeGreaterThanOrEqual(1)
+    })
+  }
 })

@@ -72,6 +72,22 @@ describe('classifyDropout', () => {
   })
   it('calls a bare telemetry gap with nothing else wrong a gap', () =>
     expect(classifyDropout(event(20, 21, { fromSignal: false, fromGap: true }), context(), { fadeMarginDb: 10 }).cause).toBe('gap'))
+  it('calls a gap-only event a gap even where the path is obstructed, keeping the obstruction as a further cause', () => {
+    const ctx = context()
+    ctx.clearanceFraction.fill(0.5, 20, 22)
+    ctx.limitingObstacle.fill(0, 20, 22)
+    const d = classifyDropout(event(20, 21, { fromSignal: false, fromGap: true }), ctx, { fadeMarginDb: 10 })
+    expect(d.cause).toBe('gap')
+    expect(d.causes).toEqual(['gap', 'obstruction'])
+    expect(d.evidence).toMatchObject({ minClearanceFraction: 0.5, limitingObstacle: 'barn', signalBeforeDbm: null })
+  })
+  it('keeps the signal cause first when a gap merged with a fade below sensitivity', () => {
+    const ctx = context()
+    ctx.clearanceFraction.fill(0.5, 20, 22)
+    const d = classifyDropout(event(20, 21, { fromSignal: true, fromGap: true }), ctx, { fadeMarginDb: 10 })
+    expect(d.causes[0]).toBe('obstruction')
+    expect(d.causes).toContain('gap')
+  })
   it('leaves a slow decay with margin and no geometry cause unexplained', () => {
     const ctx = context()
     ctx.rxPowerDbm.fill(-90)

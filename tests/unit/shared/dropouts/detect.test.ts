@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { detectDropouts } from '../../../../shared/dropouts/detect.js'
+import { detectDropouts, gapThresholdMs, typicalStepMs } from '../../../../shared/dropouts/detect.js'
 
 /** 10 Hz time base. */
 const times = (n: number) => Float64Array.from({ length: n }, (_, i) => i * 100)
@@ -38,6 +38,30 @@ describe('detectDropouts', () => {
     const ev = detectDropouts(t, new Float64Array(10).fill(-70), undefined, { ...opts, maxGapMs: 1000 }).events
     expect(ev).toHaveLength(1)
     expect(ev[0]).toMatchObject({ startIndex: 4, endIndex: 5, fromGap: true, durationMs: 3100 })
+  })
+  it('derives the gap threshold from the typical frame interval: max(1 s, 5 × median step)', () => {
+    const t50 = Float64Array.from({ length: 1000 }, (_, i) => i * 20)
+    expect(typicalStepMs(t50)).toBe(20)
+    expect(gapThresholdMs(t50)).toBe(1000)
+    const t1 = Float64Array.from({ length: 100 }, (_, i) => i * 1000)
+    expect(gapThresholdMs(t1)).toBe(5000)
+    expect(gapThresholdMs(t1, { gapStepFactor: 2 })).toBe(2000)
+    expect(gapThresholdMs(t50, { minGapMs: 300 })).toBe(300)
+    expect(gapThresholdMs(t1, { maxGapMs: 1500 })).toBe(1500)
+    expect(() => gapThresholdMs(t1, { gapStepFactor: 0 })).toThrow(/gapStepFactor/)
+  })
+  it('finds a 1.5 s hole in a 50 Hz log without being told the threshold', () => {
+    const t = Float64Array.from({ length: 500 }, (_, i) => i * 20 + (i >= 300 ? 1480 : 0))
+    const ev = detectDropouts(t, new Float64Array(500).fill(-70), undefined, opts).events
+    expect(ev).toHaveLength(1)
+    expect(ev[0]).toMatchObject({ startIndex: 299, endIndex: 300, fromGap: true, durationMs: 1500 })
+  })
+  it('does not call every frame of a jittery 1 Hz log a gap, but still finds a 6 s hole', () => {
+    const t = Float64Array.from({ length: 60 }, (_, i) => i * 1000 + (i % 3) * 90 + (i >= 40 ? 5000 : 0))
+    const res = detectDropouts(t, new Float64Array(60).fill(-70), undefined, opts)
+    // steps run 1090, 1090, 820 ms: the median is 1090
+    expect(res.gapThresholdMs).toBe(5450)
+    expect(res.events.map((e) => [e.startIndex, e.endIndex, e.fromGap])).toEqual([[39, 40, true]])
   })
   it('merges events closer than mergeWithinMs', () => {
     const rx = new Float64Array(40).fill(-80)
