@@ -104,7 +104,7 @@ async function seedUser(): Promise<{ email: string; password: string; courseId: 
 /** Starts the real server (node + tsx loader, so the pid is the server's own). */
 async function startServer(dataDir: string): Promise<ChildProcess> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, PORT: String(PORT), HOST: '127.0.0.1', DATA_DIR: dataDir, LOG_LEVEL: 'warn', NODE_ENV: process.env.NODE_ENV ?? 'production', JOB_POLL_SECONDS: '0.5' },
+    env: { ...process.env, PORT: String(PORT), HOST: '127.0.0.1', DATA_DIR: dataDir, LOG_LEVEL: process.env.BENCH_SERVER_LOG_LEVEL ?? 'warn', NODE_ENV: process.env.NODE_ENV ?? 'production', JOB_POLL_SECONDS: '0.5' },
     stdio: ['ignore', 'inherit', 'inherit'],
   })
   for (let i = 0; i < 300; i++) {
@@ -209,6 +209,10 @@ async function main(): Promise<void> {
     const ing = await apiIngest(file, ROWS)
     console.log(`(b) upload → ready through the API: ${ing.seconds.toFixed(2)} s, server RSS ${ing.baseMb.toFixed(0)} MB idle, ${ing.peakMb.toFixed(0)} MB peak`)
     fs.rmSync(file)
+    if (!BIG_ROWS) {
+      console.log(`ingest_rows_per_s: ${Math.round(ROWS / ing.seconds)}\ncopy_rows_per_s: ${Math.round(ROWS / copyS)}\ningest_ratio: ${(ing.seconds / copyS).toFixed(2)}`)
+      return
+    }
     const big = path.join(dir, 'log-3m.csv')
     const bigBytes = await writeLog(big, BIG_ROWS)
     const ing3 = await apiIngest(big, BIG_ROWS)

@@ -1,4 +1,4 @@
-import { groundDistanceM } from '../../../shared/geo/localOffset.js'
+import { distanceFromStation } from './stationDistance.js'
 import type { ColumnMapping } from '../../../shared/import/mapping.js'
 import { RecordError, RecordSplitter } from '../../../shared/import/recordSplitter.js'
 import { MappingMismatchError, RowConverter, emptySampleRow, type SampleRow } from '../../../shared/import/rowConverter.js'
@@ -39,7 +39,7 @@ export interface ScanResult {
 export async function scanDelimited(chunks: AsyncIterable<TextChunk>, opts: ScanOptions, sink: RowSink): Promise<ScanResult> {
   const report = new RowReport()
   const out = emptySampleRow()
-  const { latDeg, lonDeg } = opts.station
+  const distM = distanceFromStation(opts.station.latDeg, opts.station.lonDeg)
   let header: string[] | null = null
   let conv: RowConverter | null = null
   let seq = 0
@@ -63,7 +63,7 @@ export async function scanDelimited(chunks: AsyncIterable<TextChunk>, opts: Scan
     }
     const outcome = conv.convert(fields, out)
     if (outcome === 'ok') {
-      sink.row(seq++, out, groundDistanceM(latDeg, lonDeg, out.lat, out.lon))
+      sink.row(seq++, out, distM(out.lat, out.lon))
       report.goodRows++
     } else if (outcome === 'no-fix') report.noFixRows++
     else report.bad(row, outcome.column, outcome.reason)

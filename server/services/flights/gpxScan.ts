@@ -1,4 +1,4 @@
-import { groundDistanceM } from '../../../shared/geo/localOffset.js'
+import { distanceFromStation } from './stationDistance.js'
 import { parseIsoCell, parseNumberCell } from '../../../shared/import/cellValues.js'
 import { ALT_M_RANGE, LQ_PCT_RANGE, SIGNAL_DBM_RANGE, SNR_DB_RANGE, emptySampleRow } from '../../../shared/import/rowConverter.js'
 import { RowReport } from '../../../shared/import/rowReport.js'
@@ -46,6 +46,7 @@ function extensionRole(name: string): 'rssi1' | 'rssi2' | 'lq' | 'snr' | null {
 export async function scanGpx(chunks: AsyncIterable<TextChunk>, opts: GpxScanOptions, sink: RowSink): Promise<GpxScanResult> {
   const report = new RowReport()
   const out = emptySampleRow()
+  const distM = distanceFromStation(opts.station.latDeg, opts.station.lonDeg)
   let rest = ''
   let point = 0
   let seq = 0
@@ -103,7 +104,7 @@ export async function scanGpx(chunks: AsyncIterable<TextChunk>, opts: GpxScanOpt
     out.snr = snr
     out.extrasJson = null
     out.text.lat = out.text.lon = out.text.altM = out.text.rssi1Dbm = out.text.rssi2Dbm = out.text.lq = out.text.snr = null
-    sink.row(seq++, out, groundDistanceM(opts.station.latDeg, opts.station.lonDeg, lat, lon))
+    sink.row(seq++, out, distM(lat, lon))
     report.goodRows++
   }
   let sawGpx = false
