@@ -16,10 +16,14 @@ import { countByCause, summariseClearance, summariseDistances } from './summary.
 import { type AnalysisOptions, type FlightAnalysisOutput, type FlightInput } from './types.js'
 
 /** Version of the analysis method; stored with results so old analyses can be told apart. */
-export const METHOD_VERSION = 'ellipsoid-link/1.0.0'
+export const METHOD_VERSION = 'ellipsoid-link/1.1.0'
 
 /**
  * Analyses one range-test flight: distances, Fresnel clearance, dropouts with causes, log-distance fit and summary.
+ * Distances: the fit, predicted margins and predicted range use the 3-D slant range from the ground antenna to the
+ * aircraft (the path the signal travels; ground distance biases the exponent up close in, where the aircraft is
+ * high relative to its distance). Ground distance is what is shown (series.distanceM, evidence, max distance with
+ * link) and what the fit's minimum-distance rule tests (it guards against the antenna's overhead null).
  * @param input typed-array telemetry, ground station, altitude reference, radio setup, obstacles, optional terrain
  * @param options fade margin (dB, >= 0, default 10), k-factor (> 0, default 4/3), fit/detection/classification rules
  * @returns JSON-safe result and per-sample typed arrays
@@ -71,7 +75,7 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   let fit: LogDistanceFit | null = null
   let fitError: string | null = null
   try {
-    fit = fitLogDistanceFromLog10(geo.log10DistanceM, geo.rxBestDbm, {
+    fit = fitLogDistanceFromLog10(geo.log10SlantRangeM, geo.rxBestDbm, {
       include: selection.include,
       referenceDistanceM: options.referenceDistanceM ?? 1,
     })
@@ -95,9 +99,9 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   const tenN = 10 * model.exponent
   const offset = model.interceptDbm + tenN * Math.log10(model.referenceDistanceM) - setup.sensitivityDbm
   const pointingWeight = fit ? 0 : 1
-  const { log10DistanceM, pointingLossDb, rxBestDbm, distanceM } = geo
+  const { log10SlantRangeM, pointingLossDb, rxBestDbm, distanceM } = geo
   const predictedMarginDb = (i: number): number =>
-    offset - tenN * log10DistanceM[i]! - pointingWeight * pointingLossDb[i]!
+    offset - tenN * log10SlantRangeM[i]! - pointingWeight * pointingLossDb[i]!
   // one pass for the measured margin, time with link and the furthest distance with link held
   const marginDb = new Float32Array(len)
   const maxGapMs = detection.gapThresholdMs

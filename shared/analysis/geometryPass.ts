@@ -12,8 +12,12 @@ import { type FlightInput } from './types.js'
 /** Per-sample geometry and clearance of a flight relative to the ground station. */
 export interface FlightGeometry {
   distanceM: Float64Array
-  /** log10 of the ground distance in metres (for the fit and predictions; float32 keeps 1e-6 dB). */
-  log10DistanceM: Float32Array
+  /**
+   * log10 of the 3-D slant range from the ground antenna to the aircraft, m (ground distance when the height is
+   * missing). The fit and predicted margins use it: close in and high up, ground distance understates the path
+   * and biases the exponent upward. Float32 keeps 1e-6 dB.
+   */
+  log10SlantRangeM: Float32Array
   /** Subtract from altM to get height above the station ground, m (ground elevation for AMSL, else 0). */
   altitudeOffsetM: number
   /** Gain lost to pointing against the best boresight gain, dB (all 0 without directional antennas). */
@@ -75,7 +79,7 @@ export function computeGeometry(
   const { samples: s, station } = input
   const len = s.timeMs.length
   const distanceM = new Float64Array(len)
-  const log10DistanceM = new Float32Array(len)
+  const log10SlantRangeM = new Float32Array(len)
   const amsl = input.altitudeReference === 'AMSL'
   const altM = s.altM
   const pointingLossDb = new Float32Array(len)
@@ -128,7 +132,7 @@ export function computeGeometry(
     }
     // a 0,0 fix is the GPS's "no fix yet" frame, not a position in the Gulf of Guinea
     if (!(lat === lat && lon === lon) || (lat === 0 && lon === 0)) {
-      distanceM[i] = log10DistanceM[i] = clearanceFraction[i] = NaN
+      distanceM[i] = log10SlantRangeM[i] = clearanceFraction[i] = NaN
       limitingObstacle[i] = LIMITING_NONE
       continue
     }
@@ -146,9 +150,10 @@ export function computeGeometry(
     if (d < minD) minD = d
     if (d > maxD) maxD = d
     if (h > maxH) maxH = h
-    log10DistanceM[i] = fastLog10(d)
     const up = h - hAnt
     const slant2 = d2 + up * up
+    // log10(√s²) = ½·log10(s²): no square root; without a height the ground distance stands in
+    log10SlantRangeM[i] = slant2 === slant2 ? 0.5 * fastLog10(slant2) : fastLog10(d)
     if (slant2 > maxSlant) maxSlant = slant2
     if (pe === pe) {
       const dh = h - ph
@@ -198,7 +203,7 @@ export function computeGeometry(
   }
   return {
     distanceM,
-    log10DistanceM,
+    log10SlantRangeM,
     altitudeOffsetM: datumOffset,
     pointingLossDb,
     rxBestDbm,

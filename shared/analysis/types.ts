@@ -121,7 +121,7 @@ export interface FlightAnalysis {
     includedCount: number
     excluded: { missing: number; tooClose: number; atFloor: number; inDropout: number; obstructed: number }
   }
-  /** Model used for predicted margins and ranges. */
+  /** Model used for predicted margins and ranges; its distance is the slant range from the ground antenna. */
   model: { source: 'fit' | 'free-space'; interceptDbm: number; exponent: number; referenceDistanceM: number }
   dropouts: ClassifiedDropout[]
   /** Diversity: signal dropouts each receive antenna alone would have had (same thresholds, no LQ or gaps). */

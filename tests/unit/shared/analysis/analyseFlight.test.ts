@@ -4,6 +4,8 @@ import { type FlightInput } from '../../../../shared/analysis/types.js'
 import { createLocalProjection } from '../../../../shared/geo/localProjection.js'
 import { freeSpaceLossDb } from '../../../../shared/rf/freeSpaceLoss.js'
 import { generateFlight, type GeneratorCourse, type GeneratorSetup } from '../../../../shared/demo/generateFlight.js'
+import { fitLogDistance } from '../../../../shared/propagation/logDistanceFit.js'
+import { selectFitSamples } from '../../../../shared/propagation/fitSelection.js'
 
 const station = { latDeg: 47.4, lonDeg: 8.5, antennaHeightM: 2, groundElevM: 400 }
 const proj = createLocalProjection(station.latDeg, station.lonDeg)
@@ -17,7 +19,7 @@ function normals(seed: number) {
 
 /**
  * A flight straight out along a bearing and back at a fixed height, 10 Hz, with power from a
- * log-distance model: Pr = p1m − 10 n log10(d) + σ·N(0, 1).
+ * log-distance model on the slant range s: Pr = p1m − 10 n log10(s) + σ·N(0, 1).
  */
 function radialFlight(opts: { n?: number; p1mDbm?: number; sigmaDb?: number; maxM?: number; heightM?: number; bearingDeg?: number; count?: number } = {}): FlightInput {
   const { n = 2.5, p1mDbm = -5, sigmaDb = 2, maxM = 3000, heightM = 60, bearingDeg = 0, count = 4000 } = opts
@@ -35,7 +37,8 @@ function radialFlight(opts: { n?: number; p1mDbm?: number; sigmaDb?: number; max
     latDeg[i] = station.latDeg + (r * Math.cos(b)) / proj.north0
     lonDeg[i] = station.lonDeg + (r * Math.sin(b)) / proj.east0
     altM[i] = heightM
-    rssiDbm[i] = p1mDbm - 10 * n * Math.log10(r) + sigmaDb * gauss()
+    // the signal travels the slant range from the 2 m antenna to the aircraft
+    rssiDbm[i] = p1mDbm - 10 * n * Math.log10(Math.hypot(r, heightM - station.antennaHeightM)) + sigmaDb * gauss()
   }
   return {
     samples: { timeMs, latDeg, lonDeg, altM, rssiDbm },
@@ -252,6 +255,44 @@ describe('analyseFlight on generated demo flights', () => {
       expect(gap!.evidence.heightM).toBeGreaterThan(50)
       expect(gap!.evidence.minClearanceFraction).not.toBeNull()
       expect(result.summary.dropoutsByCause.gap).toBeGreaterThanOrEqual(1)
+    })
+  }
+})
+
+describe('analyseFlight fit distance', () => {
+  // a steep climb to 100 m over a 700 m course keeps the aircraft high relative to its distance for much of the flight;
+  // ground shadowing and the ground reflection are off so the geometry alone decides the fitted exponent
+  const course: GeneratorCourse = {
+    stationLatDeg: 52.8712,
+    stationLonDeg: -0.0563,
+    antennaHeightM: 2,
+    routeLonLat: [[-0.0563, 52.8712], [-0.04703, 52.87444]],
+    obstacles: [],
+  }
+  const setup: GeneratorSetup = { freqMHz: 868, txPowerDbm: 23.98, txGainDbi: 2.15, rxAntennas: [demoOmni], cableLossDb: 1, sensitivityDbm: -112, floorDbm: -130 }
+  for (const truthN of [2.2, 2.6, 3.2]) {
+    it(`fits a generated flight with n = ${truthN} within 0.05 of the truth, using the slant range`, () => {
+      const f = generateFlight(course, setup, {
+        seed: 3,
+        profile: { speedMps: 15, cruiseAltM: 100, climbMps: 50, sampleHz: 10 },
+        truth: { exponent: truthN, shadowSigmaDb: 0, flightShadowSigmaDb: 0.5, reflectionMagnitude: 0 },
+      })
+      const input: FlightInput = {
+        samples: { timeMs: f.timeMs, latDeg: f.latDeg, lonDeg: f.lonDeg, altM: f.altM, rssiDbm: f.rssiDbm[0]!, lqPct: f.lqPct },
+        station: { latDeg: course.stationLatDeg, lonDeg: course.stationLonDeg, antennaHeightM: 2, groundElevM: 2 },
+        altitudeReference: 'AGL',
+        setup: { ...setup, rxAntennas: [{ kind: 'omni', gainDbi: 2.15 }] },
+      }
+      const { result, series } = analyseFlight(input)
+      expect(Math.abs(result.fit!.exponent - truthN)).toBeLessThan(0.05)
+      // the same samples fitted on ground distance land far off: the reason the fit uses the slant range
+      const selected = selectFitSamples(series.distanceM, series.rxBestDbm, result.fitSelection.rule, {
+        inDropout: series.inDropout,
+        clearanceFraction: series.clearanceFraction,
+      })
+      const onGround = fitLogDistance(series.distanceM, Float64Array.from(series.rxBestDbm), { include: selected.include })
+      expect(onGround.sampleCount).toBe(result.fit!.sampleCount)
+      expect(Math.abs(onGround.exponent - truthN)).toBeGreaterThan(0.3)
     })
   }
 })
