@@ -47,6 +47,10 @@ export interface MatchedAdvantage {
   binCount: number
   binWidthM: number
   bins: AdvantageBin[]
+  /** Lag-1 autocorrelation of the per-bin differences used for the interval, in [0, 0.9]; null with fewer than 2 bins. */
+  lag1Correlation?: number | null
+  /** Bins worth of independent information behind the interval, m(1 − ρ)/(1 + ρ); null with fewer than 2 bins. */
+  effectiveBinCount?: number | null
 }
 
 function binSeries(s: DistanceSeries, name: string, binWidthM: number, minDistanceM: number) {
@@ -76,7 +80,8 @@ function binSeries(s: DistanceSeries, name: string, binWidthM: number, minDistan
 }
 
 /**
- * Matched-distance advantage of flight B over flight A: per-bin medians, mean difference with a t confidence interval.
+ * Matched-distance advantage of flight B over flight A: per-bin medians, mean difference with a t confidence interval
+ * that allows for shadowing shared by neighbouring bins (lag-1 autocorrelation, effective bin count).
  * @param a reference flight (distance in m, power in dBm)
  * @param b compared flight, same course
  * @param options binWidthM (> 0, default 50 m), minDistanceM (>= 0), minSamplesPerBin (>= 1, default 5), confidenceLevel (default 0.95)
@@ -117,18 +122,16 @@ export function matchedDistanceAdvantage(
   }
   const m = bins.length
   if (m === 0) {
-    return { meanDifferenceDb: null, lowerDb: null, upperDb: null, confidenceLevel: level, binCount: 0, binWidthM, bins }
+    return { meanDifferenceDb: null, lowerDb: null, upperDb: null, confidenceLevel: level, binCount: 0, binWidthM, bins, lag1Correlation: null, effectiveBinCount: null }
   }
   let sum = 0
   for (const bin of bins) sum += bin.differenceDb
   const mean = sum / m
   if (m < 2) {
-    return { meanDifferenceDb: mean, lowerDb: null, upperDb: null, confidenceLevel: level, binCount: 1, binWidthM, bins }
+    return { meanDifferenceDb: mean, lowerDb: null, upperDb: null, confidenceLevel: level, binCount: 1, binWidthM, bins, lag1Correlation: null, effectiveBinCount: null }
   }
-  let ss = 0
-  for (const bin of bins) ss += (bin.differenceDb - mean) ** 2
-  // one-sample t interval over bins (Student 1908); bins are treated as independent
-  const half = studentTQuantile(0.5 + level / 2, m - 1) * Math.sqrt(ss / (m - 1) / m)
+  const { halfWidthDb, lag1Correlation, effectiveBinCount } = correlatedMeanHalfWidth(bins, mean, level)
+  const half = halfWidthDb
   return {
     meanDifferenceDb: mean,
     lowerDb: mean - half,
@@ -137,5 +140,35 @@ export function matchedDistanceAdvantage(
     binCount: m,
     binWidthM,
     bins,
+    lag1Correlation,
+    effectiveBinCount,
   }
+}
+
+/** Largest lag-1 correlation the interval allows for: beyond it n_eff would rest on a handful of bins. */
+const MAX_LAG1_CORRELATION = 0.9
+
+/**
+ * Half-width of the mean's interval when neighbouring bins share shadowing: lag-1 autocorrelation ρ of the
+ * differences (with the usual small-sample bias correction (1 + 4ρ)/m, Marriott & Pope 1954), clamped to [0, 0.9],
+ * gives n_eff = m(1 − ρ)/(1 + ρ) and a t interval on n_eff − 1 degrees of freedom.
+ */
+function correlatedMeanHalfWidth(bins: readonly AdvantageBin[], mean: number, level: number) {
+  const m = bins.length
+  let ss = 0
+  let lag = 0
+  for (let k = 0; k < m; k++) {
+    const dk = bins[k]!.differenceDb - mean
+    ss += dk * dk
+    // bins are in distance order; a skipped bin still counts as a neighbour: shadowing spans it
+    if (k > 0) lag += dk * (bins[k - 1]!.differenceDb - mean)
+  }
+  const raw = ss > 0 ? lag / ss : 0
+  const corrected = raw + (1 + 4 * raw) / m
+  const rho = corrected > 0 ? (corrected < MAX_LAG1_CORRELATION ? corrected : MAX_LAG1_CORRELATION) : 0
+  const nEff = (m * (1 - rho)) / (1 + rho)
+  const df = Math.max(1, nEff - 1)
+  // one-sample t interval (Student 1908) with the variance of the mean inflated by (1 + ρ)/(1 − ρ)
+  const halfWidthDb = studentTQuantile(0.5 + level / 2, df) * Math.sqrt(ss / (m - 1) / nEff)
+  return { halfWidthDb, lag1Correlation: rho, effectiveBinCount: nEff }
 }
