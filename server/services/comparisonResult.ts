@@ -40,9 +40,10 @@ interface LoadedFlight {
 }
 
 async function loadFlightRows(teamId: number, ids: number[]): Promise<FlightRow[]> {
+  // bigint[]: an id past the int range is simply not found (404), instead of a cast error (500)
   const { rows } = await pgPool().query<FlightRow>(
     `SELECT id, name, flown_on::text AS flown_on, course_id, setup_id, status, analysis
-       FROM flights WHERE team_id = $1 AND id = ANY($2::int[])`,
+       FROM flights WHERE team_id = $1 AND id = ANY($2::bigint[])`,
     [teamId, ids],
   )
   const missing = ids.filter((id) => !rows.some((r) => r.id === id))
