@@ -23,3 +23,30 @@ describe('createApp headers', () => {
     expect([res.status, res.body.error.code]).toEqual([403, 'CSRF_FAILED'])
   })
 })
+
+describe('security headers beyond the API', () => {
+  function expectStrictHeaders(res: request.Response) {
+    const csp = res.headers['content-security-policy'] as string
+    for (const d of ["base-uri 'none'", "frame-ancestors 'none'", "object-src 'none'"]) expect(csp).toContain(d)
+    const scriptSrc = csp.split(';').find((d) => d.trim().startsWith('script-src')) ?? ''
+    expect(scriptSrc).not.toMatch(/unsafe-inline|unsafe-eval/)
+    expect(res.headers['x-content-type-options']).toBe('nosniff')
+    expect(res.headers['referrer-policy']).toBe('no-referrer')
+    expect(res.headers['x-powered-by']).toBeUndefined()
+  }
+
+  it('GET / (the client page, or the plain 404 when no build exists) carries the same strict headers', async () => {
+    const res = await request(createApp()).get('/')
+    expectStrictHeaders(res)
+    if (res.status === 200) expect(res.headers['content-type']).toMatch(/^text\/html; charset=utf-8/i)
+  })
+
+  it('an API response, an API 404 and a refused write carry them too, with no-store and a JSON charset', async () => {
+    const app = createApp()
+    for (const res of [await request(app).get('/api/health'), await request(app).get('/api/nope'), await request(app).post('/api/courses').send({})]) {
+      expectStrictHeaders(res)
+      expect(res.headers['cache-control']).toBe('no-store')
+      expect(res.headers['content-type']).toMatch(/^application\/json; charset=utf-8/)
+    }
+  })
+})

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { Request, Response } from 'express'
-import { ConnectionRefusedError } from 'sequelize'
+import { ConnectionRefusedError, DatabaseError } from 'sequelize'
 import { errorHandler } from '../../server/middleware/errorHandler.js'
 import { tooMany } from '../../server/errors.js'
 
@@ -37,5 +37,18 @@ describe('errorHandler', () => {
     e.retryAfterS = 42
     const r = run(e)
     expect([r.status, r.headers['Retry-After']]).toEqual([429, '42'])
+  })
+})
+
+describe('errorHandler on an unexpected error', () => {
+  it('answers a generic 500 INTERNAL: no stack frame, file path, SQL or library name', () => {
+    const plain = new Error('boom at /work/main/server/services/x.ts:12')
+    const sql = new DatabaseError(Object.assign(new Error('invalid input syntax for type integer: "x"'), { sql: 'SELECT * FROM flights WHERE id = $1' }))
+    for (const err of [plain, sql, { weird: true }, 'a thrown string']) {
+      const r = run(err)
+      expect(r.status).toBe(500)
+      expect(r.body).toEqual({ error: { code: 'INTERNAL', message: 'Internal error' } })
+      expect(JSON.stringify(r.body)).not.toMatch(/\bat |\/work|\.ts|SELECT|Sequelize|flights/)
+    }
   })
 })
