@@ -6,7 +6,7 @@ import { prepareObstacles } from '../fresnel/obstacles.js'
 import { DEFAULT_FIT_SELECTION_RULE, selectFitSamples } from '../propagation/fitSelection.js'
 import { fitLogDistanceFromLog10, type LogDistanceFit } from '../propagation/logDistanceFit.js'
 import { freeSpaceModel, predictedRangeM } from '../propagation/predictions.js'
-import { detectDropouts } from '../dropouts/detect.js'
+import { detectDropouts, signalDropoutTotals } from '../dropouts/detect.js'
 import { classifyDropout } from '../dropouts/classify.js'
 import { validateFlightInput } from './validateInput.js'
 import { computeGeometry } from './geometryPass.js'
@@ -53,18 +53,18 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   // per antenna: what each diversity branch alone would have lost (the link itself uses the best one)
   const antennaSeries = samples.rssi2Dbm ? [samples.rssiDbm, samples.rssi2Dbm] : [samples.rssiDbm]
   const perAntenna = antennaSeries.map((series, index) => {
-    const events = samples.rssi2Dbm
-      ? // link quality and telemetry gaps belong to the link, not to one antenna: signal only here
-        detectDropouts(samples.timeMs, series, undefined, {
-          ...options.detection,
-          maxGapMs: Number.MAX_VALUE,
-          sensitivityDbm: setup.sensitivityDbm,
-          floorDbm,
-        }).events
-      : detection.events
-    let timeInDropoutMs = 0
-    for (const e of events) timeInDropoutMs += e.durationMs
-    return { index, dropoutCount: events.length, timeInDropoutMs }
+    if (!samples.rssi2Dbm) {
+      let timeInDropoutMs = 0
+      for (const e of detection.events) timeInDropoutMs += e.durationMs
+      return { index, dropoutCount: detection.events.length, timeInDropoutMs }
+    }
+    // link quality and telemetry gaps belong to the link, not to one antenna: signal only here
+    const { count, totalMs } = signalDropoutTotals(samples.timeMs, series, {
+      ...options.detection,
+      sensitivityDbm: setup.sensitivityDbm,
+      floorDbm,
+    })
+    return { index, dropoutCount: count, timeInDropoutMs: totalMs }
   })
 
   const rule = { ...DEFAULT_FIT_SELECTION_RULE, floorDbm, ...options.fitSelection }
@@ -101,7 +101,7 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   const pointingWeight = fit ? 0 : 1
   const { log10SlantRangeM, pointingLossDb, rxBestDbm, distanceM } = geo
   const predictedMarginDb = (i: number): number =>
-    offset - tenN * log10SlantRangeM[i]! - pointingWeight * pointingLossDb[i]!
+    offset - tenN * log10SlantRangeM[i]! - (pointingWeight === 0 ? 0 : pointingLossDb(i))
   // one pass for the measured margin, time with link and the furthest distance with link held
   const marginDb = new Float32Array(len)
   const maxGapMs = detection.gapThresholdMs

@@ -20,8 +20,8 @@ export interface FlightGeometry {
   log10SlantRangeM: Float32Array
   /** Subtract from altM to get height above the station ground, m (ground elevation for AMSL, else 0). */
   altitudeOffsetM: number
-  /** Gain lost to pointing against the best boresight gain, dB (all 0 without directional antennas). */
-  pointingLossDb: Float32Array
+  /** Gain lost to pointing against the best boresight gain at sample i, dB (0 without directional antennas or a fix). */
+  pointingLossDb: (index: number) => number
   /** Best diversity antenna, dBm (the rssiDbm array itself without a second antenna). */
   rxBestDbm: Float64Array | Float32Array
   /** Worst F1 clearance fraction, capped at CLEARANCE_FRACTION_CAP; NaN without a fix. */
@@ -58,7 +58,63 @@ function arcCosine(x: number): number {
 }
 
 /**
- * One fused pass over the samples: local offsets, distance, height, slant range, pointing loss, best-antenna power and clearance.
+ * Pointing loss on demand: only dropout samples need it, so the per-sample pass does not pay for the pattern.
+ * @param input validated flight input
+ * @param antennas resolved receive antennas
+ * @param proj the flight-wide local projection around the station
+ * @returns loss of the best antenna toward sample i against the best boresight gain, dB (>= 0; 0 without a fix)
+ */
+function createPointingProbe(
+  input: FlightInput,
+  antennas: ResolvedAntennas,
+  proj: ReturnType<typeof createLocalProjection>,
+): (index: number) => number {
+  const { samples: s, station } = input
+  const { count: nAnt, anyDirectional, gainDbi, directional, beamwidthDeg, bx, by, bz, maxGainDbi } = antennas
+  if (!anyDirectional) return () => 0
+  const datumOffset = input.altitudeReference === 'AMSL' ? station.groundElevM : 0
+  const { east0, east1, east2, north0, north1, north2 } = proj
+  // beyond 1.29 beamwidths the parabola is floored at A_m, so acos is needed only inside that cone
+  const cosFloor = new Float64Array(nAnt)
+  for (let k = 0; k < nAnt; k++) {
+    const satDeg = beamwidthDeg[k]! * Math.sqrt(DEFAULT_MAX_ATTENUATION_DB / 12)
+    cosFloor[k] = satDeg >= 180 ? -2 : Math.cos(satDeg * DEG)
+  }
+  return (i: number): number => {
+    const lat = s.latDeg[i]!
+    const lon = s.lonDeg[i]!
+    if (!(lat === lat && lon === lon) || (lat === 0 && lon === 0)) return 0
+    const dLat = lat - station.latDeg
+    let dLon = lon - station.lonDeg
+    if (dLon > 180) dLon -= 360
+    else if (dLon < -180) dLon += 360
+    const e = dLon * (east0 + dLat * (east1 + dLat * east2))
+    const no = dLat * (north0 + dLat * (north1 + dLat * north2))
+    const up = s.altM[i]! - datumOffset - station.antennaHeightM
+    const slant2 = e * e + no * no + up * up
+    if (!(slant2 > 0)) return 0
+    const inv = 1 / Math.sqrt(slant2)
+    let best = -Infinity
+    for (let k = 0; k < nAnt; k++) {
+      let g = gainDbi[k]!
+      if (directional[k] === 1) {
+        const c = (e * bx[k]! + no * by[k]! + up * bz[k]!) * inv
+        if (c <= cosFloor[k]!) g -= DEFAULT_MAX_ATTENUATION_DB
+        else {
+          const r = (arcCosine(c > 1 ? 1 : c) * RAD_TO_DEG) / beamwidthDeg[k]!
+          // 3GPP TR 36.942 §4.2.1.1 parabolic main lobe, floored at A_m
+          const att = 12 * r * r
+          g -= att < DEFAULT_MAX_ATTENUATION_DB ? att : DEFAULT_MAX_ATTENUATION_DB
+        }
+      }
+      if (g > best) best = g
+    }
+    return best === best ? maxGainDbi - best : NaN
+  }
+}
+
+/**
+ * One fused pass over the samples: local offsets, distance, height, slant range, best-antenna power and clearance.
  * @param input validated flight input
  * @param antennas resolved receive antennas
  * @param prep obstacles projected around the station
@@ -82,7 +138,6 @@ export function computeGeometry(
   const log10SlantRangeM = new Float32Array(len)
   const amsl = input.altitudeReference === 'AMSL'
   const altM = s.altM
-  const pointingLossDb = new Float32Array(len)
   const r1 = s.rssiDbm
   const r2 = s.rssi2Dbm
   const rxBestDbm = r2 ? new Float32Array(len) : r1
@@ -94,15 +149,6 @@ export function computeGeometry(
   const hAnt = station.antennaHeightM
   const lat0 = station.latDeg
   const lon0 = station.lonDeg
-  const nAnt = antennas.count
-  const anyDirectional = antennas.anyDirectional
-  const { gainDbi, directional, beamwidthDeg, bx, by, bz, maxGainDbi } = antennas
-  // beyond 1.29 beamwidths the parabola is floored at A_m, so acos is needed only inside that cone
-  const cosFloor = new Float64Array(nAnt)
-  for (let k = 0; k < nAnt; k++) {
-    const satDeg = beamwidthDeg[k]! * Math.sqrt(DEFAULT_MAX_ATTENUATION_DB / 12)
-    cosFloor[k] = satDeg >= 180 ? -2 : Math.cos(satDeg * DEG)
-  }
   const hasObstacles = prep.circleR.length > 0
   const scratch = createClearanceScratch()
   const tracker = createObstacleTracker(prep)
@@ -162,25 +208,6 @@ export function computeGeometry(
     pe = e
     pn = no
     ph = h
-    if (anyDirectional && slant2 > 0) {
-      const inv = 1 / Math.sqrt(slant2)
-      let best = -Infinity
-      for (let k = 0; k < nAnt; k++) {
-        let g = gainDbi[k]!
-        if (directional[k] === 1) {
-          const c = (e * bx[k]! + no * by[k]! + up * bz[k]!) * inv
-          if (c <= cosFloor[k]!) g -= DEFAULT_MAX_ATTENUATION_DB
-          else {
-            const r = (arcCosine(c > 1 ? 1 : c) * RAD_TO_DEG) / beamwidthDeg[k]!
-            // 3GPP TR 36.942 §4.2.1.1 parabolic main lobe, floored at A_m
-            const att = 12 * r * r
-            g -= att < DEFAULT_MAX_ATTENUATION_DB ? att : DEFAULT_MAX_ATTENUATION_DB
-          }
-        }
-        if (g > best) best = g
-      }
-      pointingLossDb[i] = best === best ? maxGainDbi - best : NaN
-    }
     let worst = groundClearanceFraction(d, hAnt, h, wavelengthMetres, twoKEarthRadiusM, CLEARANCE_FRACTION_CAP)
     let limiting = LIMITING_GROUND
     if (hasObstacles) {
@@ -205,7 +232,7 @@ export function computeGeometry(
     distanceM,
     log10SlantRangeM,
     altitudeOffsetM: datumOffset,
-    pointingLossDb,
+    pointingLossDb: createPointingProbe(input, antennas, proj),
     rxBestDbm,
     clearanceFraction,
     limitingObstacle,

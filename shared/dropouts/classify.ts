@@ -32,8 +32,8 @@ export interface DropoutContext {
   /** Index of the limiting obstacle (−1 ground, −2 terrain, >= 0 into obstacleLabels). */
   limitingObstacle: Int32Array | Int16Array
   obstacleLabels: readonly string[]
-  /** Gain lost to antenna pointing against the best boresight gain, dB (>= 0). */
-  pointingLossDb: Float64Array | Float32Array
+  /** Gain lost to antenna pointing against the best boresight gain, dB (>= 0): per sample, or computed on demand. */
+  pointingLossDb: Float64Array | Float32Array | ((index: number) => number)
   /** Model-predicted margin above sensitivity, dB: per sample, or computed on demand for a sample index. */
   predictedMarginDb: Float64Array | Float32Array | ((index: number) => number)
   /** Ground antenna height above its ground, m. */
@@ -115,10 +115,11 @@ export function classifyDropout(
   let minClear = Infinity
   let limiting = -3
   let maxPointing = 0
+  const pointing = ctx.pointingLossDb
   for (let i = i0; i <= i1; i++) {
     const c = ctx.clearanceFraction[i]!
     if (c < minClear) (minClear = c), (limiting = ctx.limitingObstacle[i]!)
-    const p = ctx.pointingLossDb[i]!
+    const p = typeof pointing === 'function' ? pointing(i) : pointing[i]!
     if (p > maxPointing) maxPointing = p
   }
   const predicted = ctx.predictedMarginDb

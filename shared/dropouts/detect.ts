@@ -171,6 +171,57 @@ export function detectDropouts(
   return { events: kept, inDropout, gapThresholdMs: maxGap }
 }
 
+/**
+ * Count and total time of signal-only dropouts, without building events: what detectDropouts reports for the same
+ * series with no link quality and no gap detection, for the per-antenna figures of diversity logs.
+ * @param timeMs sample times in ms, finite and non-decreasing (checked by the caller's detectDropouts pass)
+ * @param rxPowerDbm received power per sample in dBm; NaN is not a loss by itself
+ * @param options sensitivity/floor in dBm, minDurationMs >= 0, mergeWithinMs >= 0 (link quality and gaps ignored)
+ * @returns number of events and their summed duration, ms
+ * @throws RangeError when lengths differ or an option is out of range
+ */
+export function signalDropoutTotals(
+  timeMs: Float64Array,
+  rxPowerDbm: Float64Array | Float32Array,
+  options: Pick<DropoutDetectionOptions, 'sensitivityDbm' | 'floorDbm' | 'minDurationMs' | 'mergeWithinMs'>,
+): { count: number; totalMs: number } {
+  const len = timeMs.length
+  if (rxPowerDbm.length !== len) throw new RangeError('rxPowerDbm must have the same length as timeMs')
+  const sens = requireFinite('sensitivityDbm', options.sensitivityDbm)
+  const floor = options.floorDbm === null ? -Infinity : requireFinite('floorDbm', options.floorDbm)
+  const minDur = requireNonNegative('minDurationMs', options.minDurationMs ?? 0)
+  const mergeWithin = requireNonNegative('mergeWithinMs', options.mergeWithinMs ?? 1000)
+  let count = 0
+  let totalMs = 0
+  // the merged event being built: [openStart, openEnd] ms; runs arrive in time order
+  let openStart = NaN
+  let openEnd = NaN
+  let runStartMs = NaN
+  let runEndMs = NaN
+  const close = (startMs: number, endMs: number) => {
+    if (openStart === openStart && startMs - openEnd <= mergeWithin) {
+      if (endMs > openEnd) openEnd = endMs
+      return
+    }
+    if (openStart === openStart && openEnd - openStart >= minDur) (count++, (totalMs += openEnd - openStart))
+    openStart = startMs
+    openEnd = endMs
+  }
+  for (let i = 0; i < len; i++) {
+    const p = rxPowerDbm[i]!
+    if (p < sens || p <= floor) {
+      if (runStartMs !== runStartMs) runStartMs = timeMs[i]!
+      runEndMs = timeMs[i]!
+    } else if (runStartMs === runStartMs) {
+      close(runStartMs, timeMs[i]!)
+      runStartMs = NaN
+    }
+  }
+  if (runStartMs === runStartMs) close(runStartMs, runEndMs)
+  if (openStart === openStart && openEnd - openStart >= minDur) (count++, (totalMs += openEnd - openStart))
+  return { count, totalMs }
+}
+
 function event(
   startIndex: number,
   endIndex: number,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { detectDropouts, gapThresholdMs, typicalStepMs } from '../../../../shared/dropouts/detect.js'
+import { detectDropouts, gapThresholdMs, signalDropoutTotals, typicalStepMs } from '../../../../shared/dropouts/detect.js'
 
 /** 10 Hz time base. */
 const times = (n: number) => Float64Array.from({ length: n }, (_, i) => i * 100)
@@ -95,4 +95,23 @@ describe('detectDropouts', () => {
   })
   it('rejects a link-quality threshold above 100 %', () =>
     expect(() => detectDropouts(times(2), new Float64Array(2), undefined, { ...opts, minLinkQualityPct: 120 })).toThrow(/minLinkQualityPct/))
+})
+
+describe('signalDropoutTotals', () => {
+  it('counts the same signal-only events and time as detectDropouts on random logs', () => {
+    let s = 99
+    const u = () => (s = (s * 16807) % 2147483647) / 2147483647
+    for (let trial = 0; trial < 50; trial++) {
+      const n = 500
+      const t = new Float64Array(n)
+      const rx = new Float64Array(n)
+      for (let i = 1; i < n; i++) t[i] = t[i - 1]! + (u() < 0.05 ? 0 : 50 + Math.floor(u() * 200))
+      for (let i = 0; i < n; i++) rx[i] = u() < 0.15 ? -120 : u() < 0.05 ? NaN : -80
+      const o = { sensitivityDbm: -100, floorDbm: -130, mergeWithinMs: Math.floor(u() * 800), minDurationMs: Math.floor(u() * 400) }
+      const events = detectDropouts(t, rx, undefined, { ...o, maxGapMs: Number.MAX_VALUE }).events
+      const totals = signalDropoutTotals(t, rx, o)
+      expect(totals.count).toBe(events.length)
+      expect(totals.totalMs).toBe(events.reduce((a, e) => a + e.durationMs, 0))
+    }
+  })
 })
