@@ -8,23 +8,25 @@ import { LinkSetup } from '../../models/LinkSetup.js'
 import { terrainSampler } from '../terrain.js'
 import { buildFlightInput } from './analysisInput.js'
 import { SeriesCollector } from './seriesCollector.js'
+import { OverviewBuilder, saveOverview } from './overview.js'
 import { emptySampleRow } from '../../../shared/import/rowConverter.js'
 
 const READ_BATCH = 50_000
 
 /**
  * Reads a stored flight's samples back in seq batches into a bounded collector (re-analysis only; an import
- * analyses the arrays it already parsed).
+ * analyses the arrays it already parsed). Also feeds `overview` when given, so a re-analysis refreshes it in the same pass.
  * @param flightId the flight
+ * @param overview builder of the flight's stored overview
  * @returns the analysis arrays
  */
-export async function readSeries(flightId: number): Promise<FlightSamples & { thinnedBy: number }> {
+export async function readSeries(flightId: number, overview?: OverviewBuilder): Promise<FlightSamples & { thinnedBy: number }> {
   const c = new SeriesCollector()
   const row = emptySampleRow()
   const n = (v: number | null) => (v === null ? NaN : v)
   for (let from = 0; ; from += READ_BATCH) {
-    const { rows } = await pgPool().query<{ t: string; la: number; lo: number; a: number | null; r1: number | null; r2: number | null; q: number | null; s: number | null }>(
-      `SELECT t_ms AS t, lat AS la, lon AS lo, alt_m AS a, rssi1_dbm AS r1, rssi2_dbm AS r2, lq AS q, snr AS s
+    const { rows } = await pgPool().query<{ seq: number; t: string; la: number; lo: number; a: number | null; r1: number | null; r2: number | null; q: number | null; s: number | null; d: number | null }>(
+      `SELECT seq, t_ms AS t, lat AS la, lon AS lo, alt_m AS a, rssi1_dbm AS r1, rssi2_dbm AS r2, lq AS q, snr AS s, dist_m AS d
          FROM samples WHERE flight_id = $1 AND seq >= $2 AND seq < $3 ORDER BY seq`,
       [flightId, from, from + READ_BATCH],
     )
@@ -38,6 +40,7 @@ export async function readSeries(flightId: number): Promise<FlightSamples & { th
       row.lq = n(r.q)
       row.snr = n(r.s)
       c.add(row)
+      overview?.addValues(r.seq, row.tMs, r.la, r.lo, r.a, r.r1, r.r2, r.q, r.s, r.d)
     }
     if (rows.length < READ_BATCH) break
   }
@@ -57,7 +60,10 @@ export async function analyseAndStore(flightId: number, samples?: FlightSamples 
   try {
     const [course, setup] = await Promise.all([Course.findByPk(flight.courseId), LinkSetup.findByPk(flight.setupId)])
     if (!course || !setup) throw new Error('The flight has no course or setup')
-    const series = samples ?? (await readSeries(flightId))
+    // a re-analysis reads the samples back (distances may have changed): refresh the overview from the same pass
+    const overview = samples ? undefined : new OverviewBuilder(setup.sensitivityDbm)
+    const series = samples ?? (await readSeries(flightId, overview))
+    if (overview) await saveOverview(flightId, overview.result())
     const input = buildFlightInput(series, course, setup, await terrainSampler(course.id))
     const { result } = analyseFlight(input)
     const analysis = { ...result, thinnedBy: series.thinnedBy, analysedSampleCount: series.timeMs.length }

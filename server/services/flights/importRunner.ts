@@ -15,6 +15,8 @@ import { scanDelimited, type RowSink } from './delimitedScan.js'
 import { scanGpx } from './gpxScan.js'
 import { rowIssues, unprocessable } from './importErrors.js'
 import { SeriesCollector } from './seriesCollector.js'
+import { OverviewBuilder, saveOverview } from './overview.js'
+import { LinkSetup } from '../../models/LinkSetup.js'
 import { loadSignalLog } from './signalSeries.js'
 import { noSignalMessage } from './precheck.js'
 import { readTextChunks } from './source.js'
@@ -40,6 +42,7 @@ function progressReporter(importId: number, bytesTotal: number) {
 interface ScanOutcome {
   report: RowReport
   collector: SeriesCollector
+  overview: OverviewBuilder
 }
 
 /** Parses the file and COPYs its rows on `client` (inside the caller's transaction). */
@@ -50,11 +53,14 @@ async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course
   copy.on('error', () => undefined)
   const writer = new CopyRowWriter(copy, imp.flightId)
   const collector = new SeriesCollector()
+  const setup = await LinkSetup.findByPk(imp.params.setupId, { attributes: ['sensitivityDbm'] })
+  const overview = new OverviewBuilder(setup?.sensitivityDbm ?? -1e9)
   const report = progressReporter(imp.id, bytesTotal)
   const sink: RowSink = {
     row(seq, r, distM) {
       writer.add(seq, r, distM)
       collector.add(r)
+      overview.addRow(seq, r, distM)
     },
     async afterChunk(bytes, rows) {
       await writer.flush()
@@ -77,7 +83,7 @@ async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course
   if (rowReport.refused(maxBad)) throw unprocessable(rowReport.refusalMessage(maxBad), rowIssues(rowReport.first))
   await writer.end()
   report(bytesTotal, rowReport.goodRows, true)
-  return { report: rowReport, collector }
+  return { report: rowReport, collector, overview }
 }
 
 /** Turns any error into the failure record kept on the import. */
@@ -123,6 +129,8 @@ export async function runImport(importId: number): Promise<void> {
          analysis = NULL, analysis_version = NULL, failure_reason = NULL, updated_at = now() WHERE id = $1`,
       [imp.flightId, outcome.report.goodRows, outcome.report.badRows, JSON.stringify(outcome.report.toDto()), JSON.stringify(p.mapping)],
     )
+    // the overview commits with the samples it was built from (a re-import replaces it)
+    await saveOverview(imp.flightId, outcome.overview.result(), client)
     await client.query('COMMIT')
     client.release()
     client = null
