@@ -1,15 +1,14 @@
 import fs from 'node:fs'
 import path from 'node:path'
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import type { Express } from 'express'
-import { createApp } from '../../server/app.js'
-import { closeDb, pgPool } from '../../server/db.js'
-import { flightJobsService } from '../../server/services/flights/jobs.js'
+import { pgPool } from '../../server/db.js'
 import { groundDistanceM } from '../../shared/geo/localOffset.js'
 import { headerSignature } from '../../shared/import/headerSignature.js'
-import { resetDb, signedIn, signedInToTeam, type SignedIn } from './helpers.js'
-import { makeCourse, makeSetup } from './fixtures-db.js'
+import { signedIn, signedInToTeam, type SignedIn } from './helpers.js'
+import { makeCourse } from './fixtures-db.js'
 import { LOGS, mappingText, storedCounts, upload, waitForStatus } from './flights-helpers.js'
+import { useFlightSuite } from './flights-suite.js'
 
 const MAPPING = mappingText('comma.csv')
 const HEADER = 'time_ms,lat,lon,alt_m,rssi_dbm,lq,snr,sats'
@@ -33,20 +32,7 @@ let s: SignedIn
 let courseId: number
 let setupId: number
 
-beforeAll(async () => {
-  app = createApp()
-  await flightJobsService.start()
-})
-afterAll(async () => {
-  await flightJobsService.stop()
-  await closeDb()
-})
-beforeEach(async () => {
-  await resetDb()
-  s = await signedIn(app, { role: 'pilot' })
-  courseId = (await makeCourse(s.team.id, s.user.id)).id
-  setupId = (await makeSetup(s.team.id, s.user.id)).id
-})
+useFlightSuite((x) => ({ app, s, courseId, setupId } = x))
 
 async function importReady(file: string | Buffer, name = 'Flight', who: SignedIn = s): Promise<number> {
   const res = await upload(who, file, { courseId, setupId, mapping: MAPPING, name })

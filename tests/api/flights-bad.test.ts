@@ -1,14 +1,12 @@
 import './env-small-upload.js'
 import fs from 'node:fs'
 import path from 'node:path'
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import type { Express } from 'express'
-import { createApp } from '../../server/app.js'
-import { closeDb } from '../../server/db.js'
-import { flightJobsService } from '../../server/services/flights/jobs.js'
-import { resetDb, signedIn, type SignedIn } from './helpers.js'
-import { makeCourse, makeSetup } from './fixtures-db.js'
+import { signedIn, type SignedIn } from './helpers.js'
+import { makeCourse } from './fixtures-db.js'
 import { LOGS, storedCounts, upload, waitForStatus } from './flights-helpers.js'
+import { useFlightSuite } from './flights-suite.js'
 
 const BAD = path.join(LOGS, 'bad')
 const MAPPING = fs.readFileSync(path.join(BAD, 'mapping.json'), 'utf8')
@@ -21,19 +19,8 @@ let courseId: number
 let setupId: number
 let before: Awaited<ReturnType<typeof storedCounts>>
 
-beforeAll(async () => {
-  app = createApp()
-  await flightJobsService.start()
-})
-afterAll(async () => {
-  await flightJobsService.stop()
-  await closeDb()
-})
-beforeEach(async () => {
-  await resetDb()
-  s = await signedIn(app, { role: 'pilot' })
-  courseId = (await makeCourse(s.team.id, s.user.id)).id
-  setupId = (await makeSetup(s.team.id, s.user.id)).id
+useFlightSuite(async (x) => {
+  ;({ app, s, courseId, setupId } = x)
   before = await storedCounts()
 })
 

@@ -2,15 +2,13 @@ import fs from 'node:fs'
 import path from 'node:path'
 import zlib from 'node:zlib'
 import Papa from 'papaparse'
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
-import type { Express } from 'express'
-import { createApp } from '../../server/app.js'
-import { closeDb, pgPool } from '../../server/db.js'
-import { flightJobsService } from '../../server/services/flights/jobs.js'
+import { describe, expect, it } from 'vitest'
+import { pgPool } from '../../server/db.js'
 import type { ColumnMapping } from '../../shared/import/mapping.js'
-import { resetDb, signedIn, type SignedIn } from './helpers.js'
-import { FIXTURE_STATION, makeCourse, makeSetup } from './fixtures-db.js'
+import type { SignedIn } from './helpers.js'
+import { FIXTURE_STATION } from './fixtures-db.js'
 import { LOGS, mappingText, storedCounts, upload, waitForStatus } from './flights-helpers.js'
+import { useFlightSuite } from './flights-suite.js'
 
 interface Expected {
   tMs: number
@@ -88,25 +86,11 @@ async function storedSamples(flightId: number) {
   return rows
 }
 
-let app: Express
 let s: SignedIn
 let courseId: number
 let setupId: number
 
-beforeAll(async () => {
-  app = createApp()
-  await flightJobsService.start()
-})
-afterAll(async () => {
-  await flightJobsService.stop()
-  await closeDb()
-})
-beforeEach(async () => {
-  await resetDb()
-  s = await signedIn(app, { role: 'pilot' })
-  courseId = (await makeCourse(s.team.id, s.user.id)).id
-  setupId = (await makeSetup(s.team.id, s.user.id)).id
-})
+useFlightSuite((x) => ({ s, courseId, setupId } = x))
 
 const DELIMITED = [
   'comma.csv',
