@@ -3,14 +3,15 @@ import { wavelengthM } from '../rf/wavelength.js'
 import { eirpDbm, freeSpaceRangeM, type LinkBudget } from '../rf/linkBudget.js'
 import { STANDARD_K_FACTOR } from '../geo/slant.js'
 import { prepareObstacles } from '../fresnel/obstacles.js'
-import { DEFAULT_FIT_SELECTION_RULE, selectFitSamples } from '../propagation/fitSelection.js'
-import { fitLogDistanceFromLog10, type LogDistanceFit } from '../propagation/logDistanceFit.js'
+import { DEFAULT_FIT_SELECTION_RULE } from '../propagation/fitSelection.js'
+import { fitLogDistanceFromSums, type LogDistanceFit } from '../propagation/logDistanceFit.js'
 import { freeSpaceModel, predictedRangeM } from '../propagation/predictions.js'
 import { detectDropouts, signalDropoutTotals } from '../dropouts/detect.js'
 import { classifyDropout } from '../dropouts/classify.js'
 import { validateFlightInput } from './validateInput.js'
 import { computeGeometry } from './geometryPass.js'
 import { createTerrainProbe } from './clearancePass.js'
+import { linkPass } from './linkPass.js'
 import { EARTH_RADIUS_M } from '../geo/slant.js'
 import { countByCause, summariseClearance, summariseDistances } from './summary.js'
 import { type AnalysisOptions, type FlightAnalysisOutput, type FlightInput } from './types.js'
@@ -68,17 +69,18 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   })
 
   const rule = { ...DEFAULT_FIT_SELECTION_RULE, floorDbm, ...options.fitSelection }
-  const selection = selectFitSamples(geo.distanceM, geo.rxBestDbm, rule, {
-    inDropout: detection.inDropout,
-    clearanceFraction: geo.clearanceFraction,
-  })
+  // selection, fit sums and time/distance with link in one pass (same results as selectFitSamples + fitLogDistanceFromLog10)
+  const pass = linkPass(geo, samples.timeMs, detection.inDropout, rule, detection.gapThresholdMs)
   let fit: LogDistanceFit | null = null
   let fitError: string | null = null
   try {
-    fit = fitLogDistanceFromLog10(geo.log10SlantRangeM, geo.rxBestDbm, {
-      include: selection.include,
-      referenceDistanceM: options.referenceDistanceM ?? 1,
-    })
+    const fitOptions = { referenceDistanceM: options.referenceDistanceM ?? 1 }
+    if (pass.invalid !== null) {
+      // the option error first, as the array fit reports it
+      requirePositive('referenceDistanceM', fitOptions.referenceDistanceM)
+      throw new RangeError(pass.invalid)
+    }
+    fit = fitLogDistanceFromSums(pass.sums, fitOptions)
   } catch (e) {
     // too few usable samples is a normal outcome for a short flight: report it, fall back to free space
     fitError = e instanceof Error ? e.message : String(e)
@@ -99,29 +101,13 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   const tenN = 10 * model.exponent
   const offset = model.interceptDbm + tenN * Math.log10(model.referenceDistanceM) - setup.sensitivityDbm
   const pointingWeight = fit ? 0 : 1
-  const { log10SlantRangeM, pointingLossDb, rxBestDbm, distanceM } = geo
+  const { log10SlantRangeM, pointingLossDb, rxBestDbm } = geo
   const predictedMarginDb = (i: number): number =>
     offset - tenN * log10SlantRangeM[i]! - (pointingWeight === 0 ? 0 : pointingLossDb(i))
-  // one pass for the measured margin, time with link and the furthest distance with link held
   const marginDb = new Float32Array(len)
-  const maxGapMs = detection.gapThresholdMs
-  const { inDropout } = detection
-  const timeMs = samples.timeMs
   const sensitivityDbm = setup.sensitivityDbm
-  let timeWithLinkMs = 0
-  let maxDistanceWithLinkM = -Infinity
-  for (let i = 0; i < len; i++) {
-    const p = rxBestDbm[i]!
-    marginDb[i] = p - sensitivityDbm
-    if (inDropout[i] === 0) {
-      const d = distanceM[i]!
-      if (d > maxDistanceWithLinkM && p === p) maxDistanceWithLinkM = d
-      if (i > 0 && inDropout[i - 1] === 0) {
-        const dt = timeMs[i]! - timeMs[i - 1]!
-        if (dt <= maxGapMs) timeWithLinkMs += dt
-      }
-    }
-  }
+  for (let i = 0; i < len; i++) marginDb[i] = rxBestDbm[i]! - sensitivityDbm
+  const { timeWithLinkMs, maxDistanceWithLinkM } = pass
 
   const ctx = {
     timeMs: samples.timeMs,
@@ -149,7 +135,7 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
       distances: summariseDistances(geo),
       fit,
       fitError,
-      fitSelection: { rule: selection.rule, includedCount: selection.includedCount, excluded: selection.excluded },
+      fitSelection: { rule: { ...rule }, includedCount: pass.includedCount, excluded: pass.excluded },
       model: { source, interceptDbm: model.interceptDbm, exponent: model.exponent, referenceDistanceM: model.referenceDistanceM },
       dropouts,
       antennas: perAntenna,

@@ -45,6 +45,17 @@ export interface FitSelectionContext {
 }
 
 /**
+ * Checks a selection rule's numbers, for callers that apply the rule inside their own pass.
+ * @param rule selection rule
+ * @throws RangeError when minDistanceM < 0, obstructedBelowFraction is not finite or floorDbm is not finite
+ */
+export function checkFitSelectionRule(rule: FitSelectionRule): void {
+  requireNonNegative('rule.minDistanceM', rule.minDistanceM)
+  requireInRange('rule.obstructedBelowFraction', rule.obstructedBelowFraction, -1e6, 1e6)
+  if (rule.floorDbm !== null) requireFinite('rule.floorDbm', rule.floorDbm)
+}
+
+/**
  * Applies a fit selection rule to per-sample distances and received powers.
  * @param distanceM ground-station distances in metres (NaN = missing fix)
  * @param rxPowerDbm received power in dBm (NaN = missing)
@@ -61,9 +72,7 @@ export function selectFitSamples(
 ): FitSelection {
   const len = distanceM.length
   if (rxPowerDbm.length !== len) throw new RangeError('rxPowerDbm must have the same length as distanceM')
-  requireNonNegative('rule.minDistanceM', rule.minDistanceM)
-  requireInRange('rule.obstructedBelowFraction', rule.obstructedBelowFraction, -1e6, 1e6)
-  if (rule.floorDbm !== null) requireFinite('rule.floorDbm', rule.floorDbm)
+  checkFitSelectionRule(rule)
   const { inDropout, clearanceFraction } = context
   if (inDropout && inDropout.length !== len) throw new RangeError('context.inDropout length must match')
   if (clearanceFraction && clearanceFraction.length !== len) {

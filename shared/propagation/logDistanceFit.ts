@@ -87,13 +87,13 @@ export function fitLogDistanceFromLog10(
   rxPowerDbm: Float64Array | Float32Array,
   options: LogDistanceFitOptions = {},
 ): LogDistanceFit {
-  const d0 = requirePositive('referenceDistanceM', options.referenceDistanceM ?? 1)
-  const level = requireInRange('confidenceLevel', options.confidenceLevel ?? 0.95, 1e-9, 1 - 1e-9)
+  // options are checked before the data, as before the sums were split out
+  requirePositive('referenceDistanceM', options.referenceDistanceM ?? 1)
+  requireInRange('confidenceLevel', options.confidenceLevel ?? 0.95, 1e-9, 1 - 1e-9)
   const include = options.include
   const len = log10DistanceM.length
   if (rxPowerDbm.length !== len) throw new RangeError('rxPowerDbm must have the same length as the distances')
   if (include && include.length !== len) throw new RangeError('include must have the same length as the distances')
-  const logD0 = Math.log10(d0)
   // one pass of sums shifted by the first used sample (Chan, Golub & LeVeque 1983, "shifted data"):
   // with the shift near the data, the centred moments below keep ~1e-12 relative accuracy
   let n = 0
@@ -125,6 +125,40 @@ export function fitLogDistanceFromLog10(
     if (x < xMin) xMin = x
     if (x > xMax) xMax = x
   }
+  return fitLogDistanceFromSums({ n, x0, y0, sx, sy, sxxRaw, sxyRaw, syyRaw, xMin, xMax }, options)
+}
+
+/**
+ * One-pass sums of a log-distance fit, shifted by the first used sample (x0, y0) (Chan, Golub & LeVeque 1983):
+ * sx = Σ(x − x0), sxxRaw = Σ(x − x0)², and so on, with x = log10(d / 1 m) and y = received power, dBm.
+ * For callers that accumulate them inside their own pass over the samples.
+ */
+export interface LogDistanceSums {
+  n: number
+  x0: number
+  y0: number
+  sx: number
+  sy: number
+  sxxRaw: number
+  sxyRaw: number
+  syyRaw: number
+  /** Smallest and largest x used. */
+  xMin: number
+  xMax: number
+}
+
+/**
+ * The fit of {@link fitLogDistanceFromLog10} from sums accumulated by the caller in the same order (identical result).
+ * @param sums shifted sums over the used samples
+ * @param options referenceDistanceM (> 0, default 1 m), confidenceLevel (default 0.95); include is ignored
+ * @returns the fit; σ uses N − 2 (residualSigmaPopulationDb gives the N form)
+ * @throws RangeError when an option is out of range, fewer than 3 samples were used, or all distances are equal
+ */
+export function fitLogDistanceFromSums(sums: LogDistanceSums, options: LogDistanceFitOptions = {}): LogDistanceFit {
+  const d0 = requirePositive('referenceDistanceM', options.referenceDistanceM ?? 1)
+  const level = requireInRange('confidenceLevel', options.confidenceLevel ?? 0.95, 1e-9, 1 - 1e-9)
+  const logD0 = Math.log10(d0)
+  const { n, x0, y0, sx, sy, sxxRaw, sxyRaw, syyRaw, xMin, xMax } = sums
   if (n < 3) throw new RangeError(`fitLogDistance needs at least 3 samples, got ${n}`)
   const mx = x0 + sx / n
   const my = y0 + sy / n
