@@ -1,11 +1,13 @@
 // Iterates tests/api/authz-matrix.json: every route of the listed prefixes x every principal (x owner, where the
 // row says whose item it acts on). Denied writes must leave the database as it was.
-import { readFileSync } from 'node:fs'
+import './env-private-data-dir.js'
+import { readFileSync, rmSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import type { Express, Router } from 'express'
 import type { Role } from '../../shared/types/api.js'
 import { createApp } from '../../server/app.js'
+import { config } from '../../server/config.js'
 import { pgPool } from '../../server/db.js'
 import { startMailSink, stopMailSink } from '../../server/services/mailSink.js'
 import { flightJobsService } from '../../server/services/flights/jobs.js'
@@ -64,6 +66,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await flightJobsService.stop()
   await stopMailSink()
+  rmSync(config().dataDir, { recursive: true, force: true })
 })
 
 interface World {
