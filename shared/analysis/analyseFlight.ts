@@ -104,9 +104,16 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
   const { log10SlantRangeM, pointingLossDb, rxBestDbm } = geo
   const predictedMarginDb = (i: number): number =>
     offset - tenN * log10SlantRangeM[i]! - (pointingWeight === 0 ? 0 : pointingLossDb(i))
-  const marginDb = new Float32Array(len)
+  // the measured margin series is built on first read: the stored analysis does not use it
+  let marginDb: Float32Array | null = null
   const sensitivityDbm = setup.sensitivityDbm
-  for (let i = 0; i < len; i++) marginDb[i] = rxBestDbm[i]! - sensitivityDbm
+  const measuredMarginDb = (): Float32Array => {
+    if (marginDb === null) {
+      marginDb = new Float32Array(len)
+      for (let i = 0; i < len; i++) marginDb[i] = rxBestDbm[i]! - sensitivityDbm
+    }
+    return marginDb
+  }
   const { timeWithLinkMs, maxDistanceWithLinkM } = pass
 
   const ctx = {
@@ -156,7 +163,9 @@ export function analyseFlight(input: FlightInput, options: AnalysisOptions = {})
     series: {
       distanceM: geo.distanceM,
       clearanceFraction: geo.clearanceFraction,
-      marginDb,
+      get marginDb() {
+        return measuredMarginDb()
+      },
       rxBestDbm: geo.rxBestDbm,
       inDropout: detection.inDropout,
     },

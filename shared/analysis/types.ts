@@ -99,7 +99,7 @@ export interface FlightSeries {
   distanceM: Float64Array
   /** Worst first-Fresnel-zone clearance fraction (ground, terrain, obstacles), capped at 1 (zone wholly clear). */
   clearanceFraction: Float32Array
-  /** Measured margin: best-antenna power minus sensitivity, dB (NaN when not logged). */
+  /** Measured margin: best-antenna power minus sensitivity, dB (NaN when not logged); built on first read. */
   marginDb: Float32Array
   /** Best of the diversity antennas, dBm (the input rssiDbm array without a second antenna). */
   rxBestDbm: Float64Array | Float32Array
