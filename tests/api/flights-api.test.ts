@@ -32,7 +32,9 @@ let s: SignedIn
 let courseId: number
 let setupId: number
 
-useFlightSuite((x) => ({ app, s, courseId, setupId } = x))
+useFlightSuite((x) => {
+  ;({ app, s, courseId, setupId } = x)
+})
 
 async function importReady(file: string | Buffer, name = 'Flight', who: SignedIn = s): Promise<number> {
   const res = await upload(who, file, { courseId, setupId, mapping: MAPPING, name })

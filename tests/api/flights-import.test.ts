@@ -90,7 +90,9 @@ let s: SignedIn
 let courseId: number
 let setupId: number
 
-useFlightSuite((x) => ({ s, courseId, setupId } = x))
+useFlightSuite((x) => {
+  ;({ s, courseId, setupId } = x)
+})
 
 const DELIMITED = [
   'comma.csv',
