@@ -18,6 +18,14 @@ export function zodRule(schema: ZodType, trigger: 'blur' | 'change' = 'blur'): F
   }
 }
 
+/** A "type it again" rule: the field must equal what `first()` holds (checked on blur). */
+export function sameAsRule(first: () => string, message = 'The two passwords are not the same'): FormItemRule {
+  return {
+    trigger: 'blur',
+    validator: (_rule, value, callback) => (value === first() ? callback() : callback(new Error(message))),
+  }
+}
+
 /**
  * Server-side field errors for an ElForm: bind `:error="fieldErrors.email"` on each item.
  * `showApiError(e)` maps `details` onto those fields and returns the message to show when

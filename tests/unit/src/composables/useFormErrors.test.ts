@@ -1,7 +1,7 @@
 import { describe, expect, it, vi } from 'vitest'
 import { signUpSchema } from '@shared/schemas/auth'
 import { ApiError } from '@/api/client'
-import { useFormErrors, zodRule } from '@/composables/useFormErrors'
+import { sameAsRule, useFormErrors, zodRule } from '@/composables/useFormErrors'
 
 function runRule(value: unknown): Error | undefined {
   const rule = zodRule(signUpSchema.shape.password)
@@ -13,6 +13,25 @@ function runRule(value: unknown): Error | undefined {
 describe('zodRule', () => {
   it('passes a value the shared schema accepts', () => expect(runRule('long enough')).toBeUndefined())
   it("reports the shared schema's message", () => expect(runRule('short')?.message).toMatch(/at least 8/))
+})
+
+describe('sameAsRule', () => {
+  function check(first: string, value: string): Error | undefined {
+    const rule = sameAsRule(() => first)
+    const callback = vi.fn()
+    rule.validator?.(rule, value, callback, {}, {})
+    return callback.mock.calls[0]?.[0] as Error | undefined
+  }
+  it('passes a repeat equal to the first entry', () => expect(check('field day 2026!', 'field day 2026!')).toBeUndefined())
+  it('says the two differ otherwise', () => expect(check('field day 2026!', 'field day 2026')?.message).toBe('The two passwords are not the same'))
+  it('reads the first entry when it checks, not when the rule is made', () => {
+    const form = { password: 'old' }
+    const rule = sameAsRule(() => form.password)
+    form.password = 'new one'
+    const callback = vi.fn()
+    rule.validator?.(rule, 'new one', callback, {}, {})
+    expect(callback.mock.calls[0]?.[0]).toBeUndefined()
+  })
 })
 
 describe('useFormErrors', () => {
