@@ -1,4 +1,4 @@
-import { Op, ForeignKeyConstraintError, type WhereOptions } from 'sequelize'
+import { ForeignKeyConstraintError, type WhereOptions } from 'sequelize'
 import type { AuthContext } from '../types/express.js'
 import type { ListResult } from '../../shared/types/api.js'
 import type { CourseDto, CourseSortKey, CourseTerrainDto } from '../../shared/types/course.js'
@@ -9,6 +9,7 @@ import { sequelize } from '../db.js'
 import { Course } from '../models/Course.js'
 import { CourseTerrain } from '../models/CourseTerrain.js'
 import { idsUsedByFlights } from './flightUsage.js'
+import { orderThenId, searchAnyColumn } from './listQuery.js'
 
 const SORT_COLUMNS: Record<CourseSortKey, string> = { name: 'name', createdAt: 'createdAt', updatedAt: 'updatedAt' }
 const TERRAIN_SUMMARY = { exclude: ['elevations'] }
@@ -56,10 +57,6 @@ export function toCourseDto(c: Course, terrain: CourseTerrain | null): CourseDto
   }
 }
 
-function escapeLike(s: string): string {
-  return s.replace(/[\\%_]/g, (ch) => `\\${ch}`)
-}
-
 /**
  * The team's courses, searched by name or notes, sorted by a whitelisted column, one page.
  * @param teamId the caller's team
@@ -68,16 +65,10 @@ function escapeLike(s: string): string {
  */
 export async function listCourses(teamId: number, q: CourseListQuery): Promise<ListResult<CourseDto>> {
   const where: WhereOptions = { teamId }
-  if (q.q) {
-    const like = `%${escapeLike(q.q)}%`
-    Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: like } }, { notes: { [Op.iLike]: like } }] })
-  }
+  if (q.q) Object.assign(where, searchAnyColumn(['name', 'notes'], q.q))
   const { rows, count } = await Course.findAndCountAll({
     where,
-    order: [
-      [SORT_COLUMNS[q.sort], q.order.toUpperCase()],
-      ['id', 'ASC'],
-    ],
+    order: orderThenId(SORT_COLUMNS[q.sort], q.order),
     limit: q.limit,
     offset: q.offset,
   })

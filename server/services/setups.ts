@@ -1,4 +1,4 @@
-import { Op, ForeignKeyConstraintError, QueryTypes, type Transaction, type WhereOptions } from 'sequelize'
+import { ForeignKeyConstraintError, QueryTypes, type Transaction, type WhereOptions } from 'sequelize'
 import type { AuthContext } from '../types/express.js'
 import type { ListResult } from '../../shared/types/api.js'
 import type { LinkSetupDto, SetupSortKey } from '../../shared/types/setup.js'
@@ -10,6 +10,7 @@ import { canEditOwned } from '../middleware/auth.js'
 import { sequelize } from '../db.js'
 import { LinkSetup } from '../models/LinkSetup.js'
 import { idsUsedByFlights } from './flightUsage.js'
+import { orderThenId, searchAnyColumn } from './listQuery.js'
 
 const SORT_COLUMNS: Record<SetupSortKey, string> = { name: 'name', band: 'band', freqMHz: 'freqMhz', createdAt: 'createdAt' }
 
@@ -61,26 +62,16 @@ async function dtos(rows: LinkSetup[]): Promise<LinkSetupDto[]> {
   return rows.map((r) => toSetupDto(r, used.has(r.id)))
 }
 
-function escapeLike(s: string): string {
-  return s.replace(/[\\%_]/g, (ch) => `\\${ch}`)
-}
-
 /**
  * The team's setups, current versions only, searched by name, band or notes, sorted, one page.
  * @returns one page and the total count
  */
 export async function listSetups(teamId: number, q: SetupListQuery): Promise<ListResult<LinkSetupDto>> {
   const where: WhereOptions = { teamId, isCurrent: true }
-  if (q.q) {
-    const like = `%${escapeLike(q.q)}%`
-    Object.assign(where, { [Op.or]: ['name', 'band', 'notes'].map((c) => ({ [c]: { [Op.iLike]: like } })) })
-  }
+  if (q.q) Object.assign(where, searchAnyColumn(['name', 'band', 'notes'], q.q))
   const { rows, count } = await LinkSetup.findAndCountAll({
     where,
-    order: [
-      [SORT_COLUMNS[q.sort], q.order.toUpperCase()],
-      ['id', 'ASC'],
-    ],
+    order: orderThenId(SORT_COLUMNS[q.sort], q.order),
     limit: q.limit,
     offset: q.offset,
   })
