@@ -1,19 +1,13 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { createApp } from '../../server/app.js'
-import { startMailSink, stopMailSink } from '../../server/services/mailSink.js'
-import { createTeam, createUser, csrfFor, mailsTo, resetDb, signedIn, signInAs, TEST_PASSWORD } from './helpers.js'
+import { createTeam, createUser, csrfFor, mailsTo, signedIn, signInAs, TEST_PASSWORD } from './helpers.js'
 import { Membership } from '../../server/models/Membership.js'
+import { useMailSuite } from './mail-suite.js'
 
 const app = createApp()
 
-beforeAll(async () => {
-  await startMailSink()
-})
-afterAll(async () => {
-  await stopMailSink()
-})
-beforeEach(resetDb)
+useMailSuite()
 
 describe('PATCH /api/account', () => {
   it('changes name and unit preference', async () => {

@@ -1,21 +1,15 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import request from 'supertest'
 import { createApp } from '../../server/app.js'
 import { config } from '../../server/config.js'
 import { pgPool } from '../../server/db.js'
 import { hashToken } from '../../server/services/tokens.js'
-import { startMailSink, stopMailSink } from '../../server/services/mailSink.js'
-import { createUser, csrfFor, linkIn, mailsTo, resetDb, signedIn, TEST_PASSWORD, type Agent } from './helpers.js'
+import { createUser, csrfFor, linkIn, mailsTo, signedIn, TEST_PASSWORD, type Agent } from './helpers.js'
+import { useMailSuite } from './mail-suite.js'
 
 const app = createApp()
 
-beforeAll(async () => {
-  await startMailSink()
-})
-afterAll(async () => {
-  await stopMailSink()
-})
-beforeEach(resetDb)
+useMailSuite()
 
 async function count(table: string): Promise<number> {
   const { rows } = await pgPool().query<{ n: number }>(`SELECT count(*)::int AS n FROM "${table}"`)

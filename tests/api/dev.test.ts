@@ -1,17 +1,11 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app.js'
-import { startMailSink, stopMailSink } from '../../server/services/mailSink.js'
-import { resetDb, signedIn, signedInElsewhere, signedInToTeam } from './helpers.js'
+import { signedIn, signedInElsewhere, signedInToTeam } from './helpers.js'
+import { useMailSuite } from './mail-suite.js'
 
 const app = createApp()
 
-beforeAll(async () => {
-  await startMailSink()
-})
-afterAll(async () => {
-  await stopMailSink()
-})
-beforeEach(resetDb)
+useMailSuite()
 
 describe('GET /api/dev/outbox', () => {
   it('shows an admin the messages to their team\'s invitees, newest first, and nothing of other teams', async () => {

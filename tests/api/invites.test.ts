@@ -1,19 +1,13 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { createApp } from '../../server/app.js'
 import { pgPool } from '../../server/db.js'
-import { startMailSink, stopMailSink } from '../../server/services/mailSink.js'
-import { createUser, csrfFor, linkIn, mailsTo, resetDb, signedIn, signInAs, TEST_PASSWORD, type SignedIn } from './helpers.js'
+import { createUser, csrfFor, linkIn, mailsTo, signedIn, signInAs, TEST_PASSWORD, type SignedIn } from './helpers.js'
+import { useMailSuite } from './mail-suite.js'
 
 const app = createApp()
 
-beforeAll(async () => {
-  await startMailSink()
-})
-afterAll(async () => {
-  await stopMailSink()
-})
-beforeEach(resetDb)
+useMailSuite()
 
 /** Invites `email` as the admin and returns the token read from the delivered message. */
 async function invite(admin: SignedIn, email: string, role = 'pilot'): Promise<string> {

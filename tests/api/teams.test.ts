@@ -1,19 +1,13 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app.js'
 import { pgPool } from '../../server/db.js'
-import { startMailSink, stopMailSink } from '../../server/services/mailSink.js'
 import { changeMemberRole } from '../../server/services/members.js'
-import { createTeam, createUser, linkIn, mailsTo, resetDb, signedIn, signedInElsewhere, signedInToTeam } from './helpers.js'
+import { createTeam, createUser, linkIn, mailsTo, signedIn, signedInElsewhere, signedInToTeam } from './helpers.js'
+import { useMailSuite } from './mail-suite.js'
 
 const app = createApp()
 
-beforeAll(async () => {
-  await startMailSink()
-})
-afterAll(async () => {
-  await stopMailSink()
-})
-beforeEach(resetDb)
+useMailSuite()
 
 describe('GET /api/teams/current/members', () => {
   it('lists the members of the current team only', async () => {
