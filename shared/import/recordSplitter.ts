@@ -58,10 +58,12 @@ export class RecordSplitter {
   push(text: string): void {
     if (this.sep === null) {
       if (this.line === 0 && this.rest === '' && text.charCodeAt(0) === 0xfeff) text = text.slice(1)
-      const nl = text.indexOf('\n')
-      const cr = text.indexOf('\r')
+      // Look at everything held so far: the first line end may have come in an earlier, small piece.
+      const seen = this.rest + text
+      const nl = seen.indexOf('\n')
+      const cr = seen.indexOf('\r')
       if (nl >= 0) this.sep = '\n'
-      else if (cr >= 0 && cr < text.length - 1) this.sep = '\r'
+      else if (cr >= 0 && cr < seen.length - 1) this.sep = '\r'
       else {
         this.rest += text
         this.checkLength()
@@ -125,7 +127,8 @@ export class RecordSplitter {
   }
 }
 
-function countQuotes(s: string): number {
+/** How many double quotes a text holds (an odd count leaves a quoted field open). */
+export function countQuotes(s: string): number {
   let n = 0
   for (let i = s.indexOf(QUOTE); i >= 0; i = s.indexOf(QUOTE, i + 1)) n++
   return n

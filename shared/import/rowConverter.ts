@@ -51,6 +51,14 @@ export interface RowConverterOptions {
   groundElevM: number
 }
 
+/** Where a converter reads its cells; extraKeys[i] is the JSON text written before extra i's value (`{"name":`). */
+export interface ConverterLayout {
+  slots: Partial<Record<ColumnRole, number>>
+  extras: number[]
+  extraKeys: string[]
+  headerCount: number
+}
+
 /** A mapped column that the header does not have. */
 export class MappingMismatchError extends Error {
   constructor(public column: string) {
@@ -138,8 +146,8 @@ export class RowConverter {
         ? parseDateTimeCells(fields[s.date!.index]!, fields[s.time!.index]!)
         : parseTimeCell(fields[s.time!.index]!, m.timeFormat, dc)
     if (!Number.isFinite(abs)) return problem(s.time!, fields, 'time is missing or unreadable')
-    const t = this.stored === 0 ? 0 : abs - this.t0
-    if (t < this.lastT) return { column: s.time!.name, reason: 'time goes backwards' }
+    const t = this.relativeTime(abs)
+    if (Number.isNaN(t)) return { column: s.time!.name, reason: 'time goes backwards' }
     const rssi1 = this.signal(fields[s.rssi1!.index]!)
     if (Number.isNaN(rssi1)) return problem(s.rssi1!, fields, this.signalReason())
     let rssi2 = NaN
@@ -154,9 +162,7 @@ export class RowConverter {
     if (lq === null) return { column: s.lq!.name, reason: 'link quality must be a number in [0, 100]' }
     const snr = s.snr ? optional(fields[s.snr.index]!, dc, SNR_DB_RANGE) : NaN
     if (snr === null) return { column: s.snr!.name, reason: 'SNR must be a number in [-60, 80] dB' }
-    if (this.stored === 0) this.t0 = abs
-    this.lastT = t
-    this.stored++
+    this.accept(abs, t)
     out.tMs = t
     out.lat = lat
     out.lon = lon
@@ -168,6 +174,29 @@ export class RowConverter {
     out.extrasJson = this.extras.length ? this.readExtras(fields) : null
     this.fillText(fields, out.text)
     return 'ok'
+  }
+
+  /** Column positions of the mapped roles and extras, for a scanner that reads cells itself (it must agree with convert()). */
+  layout(): ConverterLayout {
+    const slots: Partial<Record<ColumnRole, number>> = {}
+    for (const [role, slot] of Object.entries(this.slot)) slots[role as ColumnRole] = slot.index
+    return { slots, extras: this.extras.map((e) => e.index), extraKeys: [...this.extraKeys], headerCount: this.headerCount }
+  }
+
+  /**
+   * Time from the first stored row for an absolute reading.
+   * @returns ms, or NaN when the row would go backwards in time
+   */
+  relativeTime(abs: number): number {
+    const t = this.stored === 0 ? 0 : abs - this.t0
+    return t < this.lastT ? NaN : t
+  }
+
+  /** Records a row as stored (its absolute and relative time), for rows accepted by a caller's own fast check. */
+  accept(abs: number, t: number): void {
+    if (this.stored === 0) this.t0 = abs
+    this.lastT = t
+    this.stored++
   }
 
   /** Keeps cell text for values stored exactly as written (no unit change, no decimal comma, no spaces). */

@@ -28,6 +28,42 @@ function copyJson(json: string): string {
   return json.indexOf('\\') < 0 ? json : json.replace(/\\/g, '\\\\')
 }
 
+/**
+ * One samples row as a COPY text line.
+ * @param prefix the flight id and a tab
+ * @param seq row number within the flight
+ * @param r converted values (cell text used where it can be stored as written)
+ * @param distM ground distance from the station
+ */
+export function copyLine(prefix: string, seq: number, r: SampleRow, distM: number): string {
+  const x = r.text
+  return (
+    prefix +
+    seq +
+    '\t' +
+    Math.round(r.tMs) +
+    '\t' +
+    (x.lat ?? r.lat) +
+    '\t' +
+    (x.lon ?? r.lon) +
+    '\t' +
+    (x.altM ?? num(r.altM)) +
+    '\t' +
+    (x.rssi1Dbm ?? num(r.rssi1Dbm)) +
+    '\t' +
+    (x.rssi2Dbm ?? num(r.rssi2Dbm)) +
+    '\t' +
+    (x.lq ?? num(r.lq)) +
+    '\t' +
+    (x.snr ?? num(r.snr)) +
+    '\t' +
+    decimetres(distM) +
+    '\t' +
+    (r.extrasJson === null ? '\\N' : copyJson(r.extrasJson)) +
+    '\n'
+  )
+}
+
 /** Writes sample rows as COPY text in batches, honouring the stream's backpressure. */
 export class CopyRowWriter {
   // One growing string: V8 keeps it as a rope and flattens it once, when it is written.
@@ -43,31 +79,7 @@ export class CopyRowWriter {
 
   /** Queues one row; call flush() once per input chunk. */
   add(seq: number, r: SampleRow, distM: number): void {
-    const x = r.text
-    this.buf +=
-      this.prefix +
-      seq +
-      '\t' +
-      Math.round(r.tMs) +
-      '\t' +
-      (x.lat ?? r.lat) +
-      '\t' +
-      (x.lon ?? r.lon) +
-      '\t' +
-      (x.altM ?? num(r.altM)) +
-      '\t' +
-      (x.rssi1Dbm ?? num(r.rssi1Dbm)) +
-      '\t' +
-      (x.rssi2Dbm ?? num(r.rssi2Dbm)) +
-      '\t' +
-      (x.lq ?? num(r.lq)) +
-      '\t' +
-      (x.snr ?? num(r.snr)) +
-      '\t' +
-      decimetres(distM) +
-      '\t' +
-      (r.extrasJson === null ? '\\N' : copyJson(r.extrasJson)) +
-      '\n'
+    this.buf += copyLine(this.prefix, seq, r, distM)
   }
 
   /** Writes the queued rows when enough have gathered (or always, when forced), waiting if the stream is full. */

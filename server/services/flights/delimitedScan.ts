@@ -32,6 +32,27 @@ export interface ScanResult {
 }
 
 /**
+ * Reads the header record and builds the row converter for it.
+ * @throws 422 for too many columns or a mapped column the header lacks
+ */
+export function openConverter(fields: string[], opts: ScanOptions): { header: string[]; conv: RowConverter } {
+  const header = fields.map((f) => f.trim())
+  if (header.length > MAX_COLUMNS) {
+    throw unprocessable(`The header has ${header.length} columns; at most ${MAX_COLUMNS} are read`, [
+      { path: 'rows.1', message: 'too many columns', row: 1 },
+    ])
+  }
+  try {
+    return { header, conv: new RowConverter(opts.mapping, header, { groundElevM: opts.groundElevM }) }
+  } catch (e) {
+    if (e instanceof MappingMismatchError) {
+      throw unprocessable(e.message, [{ path: 'mapping', message: e.message, row: 1, column: e.column }])
+    }
+    throw e
+  }
+}
+
+/**
  * Streams a delimited log through the record splitter and the row converter, handing each good row (with its ground
  * distance from the station) to the sink and counting bad ones.
  * @throws 422 for a header that does not fit the mapping, too many columns, or an unreadable record
@@ -45,20 +66,7 @@ export async function scanDelimited(chunks: AsyncIterable<TextChunk>, opts: Scan
   let seq = 0
   const onRecord = (fields: string[], row: number) => {
     if (!conv) {
-      header = fields.map((f) => f.trim())
-      if (header.length > MAX_COLUMNS) {
-        throw unprocessable(`The header has ${header.length} columns; at most ${MAX_COLUMNS} are read`, [
-          { path: 'rows.1', message: 'too many columns', row: 1 },
-        ])
-      }
-      try {
-        conv = new RowConverter(opts.mapping, header, { groundElevM: opts.groundElevM })
-      } catch (e) {
-        if (e instanceof MappingMismatchError) {
-          throw unprocessable(e.message, [{ path: 'mapping', message: e.message, row: 1, column: e.column }])
-        }
-        throw e
-      }
+      ;({ header, conv } = openConverter(fields, opts))
       return
     }
     const outcome = conv.convert(fields, out)

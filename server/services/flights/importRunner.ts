@@ -9,9 +9,11 @@ import { Flight } from '../../models/Flight.js'
 import { FlightImport } from '../../models/FlightImport.js'
 import type { ImportFailure, ImportProgress } from '../../../shared/types/flight.js'
 import type { RowReport } from '../../../shared/import/rowReport.js'
+import type { SampleRow } from '../../../shared/import/rowConverter.js'
 import { analyseAndStore } from './analyse.js'
 import { CopyRowWriter, SAMPLE_COPY_COLUMNS } from './copyWriter.js'
-import { scanDelimited, type RowSink } from './delimitedScan.js'
+import { scanDelimitedToCopy } from './copyScan.js'
+import type { RowSink } from './delimitedScan.js'
 import { scanGpx } from './gpxScan.js'
 import { rowIssues, unprocessable } from './importErrors.js'
 import { SeriesCollector } from './seriesCollector.js'
@@ -19,10 +21,14 @@ import { OverviewBuilder, saveOverview } from './overview.js'
 import { LinkSetup } from '../../models/LinkSetup.js'
 import { loadSignalLog } from './signalSeries.js'
 import { noSignalMessage } from './precheck.js'
-import { readTextChunks } from './source.js'
+import { readByteChunks, readTextChunks } from './source.js'
 import { archiveOriginal, removeFiles } from './storage.js'
 
 const PROGRESS_EVERY_MS = 500
+/** File read size for delimited logs. */
+const READ_BYTES = 256 * 1024
+/** COPY text queued for PostgreSQL before the parser waits. */
+const COPY_BUFFER_BYTES = 2 * 1024 * 1024
 
 /** Writes progress at most every half second, never two writes at once, off the hot path. */
 function progressReporter(importId: number, bytesTotal: number) {
@@ -47,7 +53,8 @@ interface ScanOutcome {
 
 /** Parses the file and COPYs its rows on `client` (inside the caller's transaction). */
 async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course, compressed: boolean, bytesTotal: number): Promise<ScanOutcome> {
-  const copy = client.query(copyStreams.from(`COPY samples (${SAMPLE_COPY_COLUMNS}) FROM STDIN`))
+  // A deep write buffer lets parsing run ahead while PostgreSQL works through the previous chunks.
+  const copy = client.query(copyStreams.from(`COPY samples (${SAMPLE_COPY_COLUMNS}) FROM STDIN`, { highWaterMark: COPY_BUFFER_BYTES }))
   // Errors reach the writer through drain/finish waits; this listener only keeps a late one (after the connection
   // is dropped on failure) from becoming an unhandled 'error' event.
   copy.on('error', () => undefined)
@@ -67,17 +74,23 @@ async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course
       report(bytes, rows)
     },
   }
-  const chunks = readTextChunks(imp.tempFile!, { compressed })
+  const collect = (seq: number, r: SampleRow, distM: number) => {
+    collector.add(r)
+    overview.addRow(seq, r, distM)
+  }
   const station = { latDeg: course.stationLat, lonDeg: course.stationLon }
   let rowReport: RowReport
   if (imp.sourceFormat === 'gpx') {
+    const chunks = readTextChunks(imp.tempFile!, { compressed })
     const p = imp.params
     const signal = p.signalFile && p.signalMapping ? await loadSignalLog(p.signalFile, p.signalCompressed === true, p.signalMapping) : undefined
     const r = await scanGpx(chunks, { groundElevM: course.groundElevM, station, ...(signal ? { signal } : {}) }, sink)
     if (r.report.goodRows > 0 && !r.hasSignal) throw unprocessable(noSignalMessage(Boolean(signal)))
     rowReport = r.report
   } else {
-    rowReport = (await scanDelimited(chunks, { mapping: imp.params.mapping!, groundElevM: course.groundElevM, station }, sink)).report
+    const bytes = readByteChunks(imp.tempFile!, { compressed, chunkBytes: READ_BYTES })
+    const opts = { mapping: imp.params.mapping!, groundElevM: course.groundElevM, station }
+    rowReport = (await scanDelimitedToCopy(bytes, opts, { copy, flightId: imp.flightId, collect, progress: report })).report
   }
   const maxBad = config().badRowShare
   if (rowReport.refused(maxBad)) throw unprocessable(rowReport.refusalMessage(maxBad), rowIssues(rowReport.first))
