@@ -8,7 +8,7 @@ const N = 40
 const lambda = wavelengthM(5.8e9)
 
 /** A steady flight 800 m out at 30 m, strong signal, clear path, on boresight, model margin 25 dB. */
-function context(): DropoutContext {
+function context(): DropoutContext & { pointingLossDb: Float64Array } {
   return {
     timeMs: Float64Array.from({ length: N }, (_, i) => i * 100),
     rxPowerDbm: new Float64Array(N).fill(-70),
