@@ -33,6 +33,19 @@ export function pointsForWidth(widthPx: number): number {
   return Math.min(MAX_POINTS_PER_VIEW, Math.max(MIN_POINTS_PER_VIEW, wanted))
 }
 
+/**
+ * The flight screen's chart width guessed from the viewport, for requests sent before the screen has laid out: the
+ * side menu (216 px from 1024 px up), the main column (at most 1200 px, padded), the screen's padding, and two
+ * columns from 1100 px up. Only the point budget depends on it.
+ * @param viewportPx window width in CSS pixels
+ */
+export function estimatedChartWidthPx(viewportPx: number): number {
+  const wide = viewportPx >= 1024
+  const main = Math.min(Math.max(0, viewportPx - (wide ? 216 : 0)), 1200) - (wide ? 56 : 32)
+  const content = Math.max(0, main - 40)
+  return Math.round(viewportPx >= 1100 ? Math.max(0, (content - 12) / 2 - 22) : Math.max(0, content - 22))
+}
+
 /** Clamps a window into the flight's span and keeps it at least 1 ms wide. */
 export function clampWindow(win: TimeWindow, flight: TimeWindow): TimeWindow {
   const fromMs = Math.max(flight.fromMs, Math.min(win.fromMs, flight.toMs))

@@ -2,6 +2,9 @@ import { createRouter, createWebHistory, type RouteLocationNormalized } from 'vu
 import type { Role } from '@shared/types/api'
 import HomeView from '@/views/HomeView.vue'
 import { useAuthStore } from '@/stores/auth'
+import { useFlightDetailStore } from '@/stores/flightDetail'
+import { useMapConfigStore } from '@/stores/mapConfig'
+import { estimatedChartWidthPx } from '@/lib/sampleWindow'
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -103,6 +106,8 @@ export const router = createRouter({
       component: () => import('@/views/FlightDetailView.vue'),
       props: true,
       meta: { title: 'Flight' },
+      // the flight and its overview load while the screen's code downloads
+      beforeEnter: (to) => prefetchFlightScreen(to),
     },
     {
       path: '/compare',
@@ -180,6 +185,16 @@ export async function authGuard(to: RouteLocationNormalized) {
   if (!auth.isSignedIn) return { name: 'sign-in', query: { redirect: to.fullPath } }
   if (to.meta.roles && (auth.role === null || !to.meta.roles.includes(auth.role))) {
     return { name: 'home' }
+  }
+  return true
+}
+
+/** Starts the flight screen's requests for a signed-in visitor; never blocks the navigation. */
+function prefetchFlightScreen(to: RouteLocationNormalized): true {
+  const id = Number(to.params.flightId)
+  if (useAuthStore().isSignedIn && Number.isInteger(id) && id > 0) {
+    useFlightDetailStore().prefetch(id, estimatedChartWidthPx(window.innerWidth))
+    void useMapConfigStore().ensureLoaded()
   }
   return true
 }

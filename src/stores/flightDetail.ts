@@ -10,6 +10,9 @@ import { planSampleRequest, pointsForWidth, type SampleRequest, type TimeWindow 
 import { emptySamples, spliceWindow } from '@/lib/sampleMerge'
 import { useTimelineStore } from './timeline'
 
+/** A prefetch older than this (a navigation that never finished) is not reused, ms. */
+const PREFETCH_FRESH_MS = 10_000
+
 /** Default fade margin for predicted range, dB (common practice 10–20). */
 export const DEFAULT_FADE_MARGIN_DB = 10
 
@@ -32,6 +35,15 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
   const selectedDropout = ref<number | null>(null)
   /** Guards against a slow response overwriting a newer one. */
   let requestSeq = 0
+  /** Requests started by prefetch() before the screen mounted, taken over by load(). */
+  let pending: {
+    id: number
+    maxPoints: number
+    atMs: number
+    flight: Promise<FlightDetail>
+    overview: Promise<SamplesDto>
+    context: Promise<[CourseDto, LinkSetupDto]>
+  } | null = null
 
   const span = computed<TimeWindow>(() => {
     const t = overview.value.tMs
@@ -43,17 +55,33 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
   )
   const dropouts = computed(() => flight.value?.analysis?.dropouts ?? [])
 
+  /**
+   * Starts the flight and overview requests (both at once: the overview does not need the flight first) as soon as
+   * the route is known, so they run while the screen's code is still downloading.
+   * @param id the flight
+   * @param widthPx expected drawing width of the charts
+   */
+  function prefetch(id: number, widthPx: number): void {
+    const maxPoints = pointsForWidth(widthPx)
+    const flightReq = flightsApi.getFlight(id)
+    const overviewReq = flightsApi.getSamples(id, 0, undefined, maxPoints)
+    // the course and setup as soon as the flight names them, not when the screen has mounted
+    const contextReq = flightReq.then((f) => Promise.all([getCourse(f.courseId), getSetup(f.setupId)]))
+    // load() reports failures; these keep an unawaited rejection quiet meanwhile
+    for (const p of [flightReq, overviewReq, contextReq]) p.catch(() => undefined)
+    pending = { id, maxPoints, atMs: Date.now(), flight: flightReq, overview: overviewReq, context: contextReq }
+  }
+
   /** Loads everything the screen needs and puts the timeline at the start. */
   async function load(id: number, widthPx: number): Promise<void> {
     loading.value = true
     const seq = ++requestSeq
     try {
-      const maxPoints = pointsForWidth(widthPx)
-      // the overview does not need the flight first: ask for both at once (the whole flight, to its end)
-      const overviewPending = flightsApi.getSamples(id, 0, undefined, maxPoints)
-      overviewPending.catch(() => undefined)
-      const f = await flightsApi.getFlight(id)
-      const [c, s, o] = await Promise.all([getCourse(f.courseId), getSetup(f.setupId), overviewPending])
+      // a fresh prefetch of this flight is taken as it is (its point budget came from a layout estimate)
+      if (pending?.id !== id || Date.now() - pending.atMs > PREFETCH_FRESH_MS) prefetch(id, widthPx)
+      const { flight: flightReq, overview: overviewPending, context, maxPoints } = pending!
+      pending = null
+      const [f, [c, s], o] = await Promise.all([flightReq, context, overviewPending])
       if (seq !== requestSeq) return
       const lastMs = o.tMs[o.tMs.length - 1] ?? 0
       const req: SampleRequest = { fromMs: 0, toMs: Math.max(1, lastMs, f.analysis?.summary.durationMs ?? 0), maxPoints }
@@ -134,6 +162,7 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
     span,
     samples,
     dropouts,
+    prefetch,
     load,
     refine,
     selectDropout,

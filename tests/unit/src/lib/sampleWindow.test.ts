@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
+  estimatedChartWidthPx,
   clampWindow,
   MAX_POINTS_PER_VIEW,
   MIN_POINTS_PER_VIEW,
@@ -16,6 +17,15 @@ describe('pointsForWidth', () => {
   it('asks for two points per pixel', () => expect(pointsForWidth(1200)).toBe(2400))
   it('never asks for more than the per-view cap', () => expect(pointsForWidth(5000)).toBe(MAX_POINTS_PER_VIEW))
   it('never asks for fewer than the floor', () => expect(pointsForWidth(0)).toBe(MIN_POINTS_PER_VIEW))
+})
+
+describe('estimatedChartWidthPx', () => {
+  it('guesses one of two columns beside the side menu on a desktop, the full column on a tablet', () => {
+    // 1440: main column 1200 - 56 padding, screen padding 40, two columns with a 12 px gap, panel padding 22
+    expect(estimatedChartWidthPx(1440)).toBe(524)
+    expect(estimatedChartWidthPx(800)).toBe(706)
+    expect(estimatedChartWidthPx(0)).toBe(0)
+  })
 })
 
 describe('windowFromPercent', () => {

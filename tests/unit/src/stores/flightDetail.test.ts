@@ -29,6 +29,23 @@ describe('useFlightDetailStore', () => {
     expect([t.startMs, t.endMs, t.currentMs]).toEqual([0, 1_000_000, 0])
   })
 
+  it('takes over the requests a prefetch started instead of asking again', async () => {
+    vi.mocked(flightsApi.getFlight).mockClear()
+    const store = useFlightDetailStore()
+    store.prefetch(7, 600)
+    expect(flightsApi.getFlight).toHaveBeenCalledTimes(1)
+    expect(flightsApi.getSamples).toHaveBeenCalledWith(7, 0, undefined, 1200)
+    await store.load(7, 1000)
+    expect(flightsApi.getFlight).toHaveBeenCalledTimes(1)
+    expect(flightsApi.getSamples).toHaveBeenCalledTimes(1)
+    expect(store.overviewRequest).toEqual({ fromMs: 0, toMs: 1_000_000, maxPoints: 1200 })
+    expect(store.course).toEqual({ id: 3, obstacles: [] })
+    // a prefetch of another flight is not taken for this one
+    store.prefetch(8, 600)
+    await store.load(7, 1000)
+    expect(flightsApi.getSamples).toHaveBeenLastCalledWith(7, 0, undefined, 2000)
+  })
+
   it('asks for a finer padded window when a chart zooms in far, and splices it into the samples', async () => {
     const store = useFlightDetailStore()
     await store.load(7, 1000)
