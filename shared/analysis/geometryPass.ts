@@ -211,7 +211,7 @@ export function computeGeometry(
     let worst = groundClearanceFraction(d, hAnt, h, wavelengthMetres, twoKEarthRadiusM, CLEARANCE_FRACTION_CAP)
     let limiting = LIMITING_GROUND
     if (hasObstacles) {
-      const f = trackedObstacleClearance(tracker, e, no, hAnt, h, wavelengthMetres, twoKEarthRadiusM, scratch)
+      const f = trackedObstacleClearance(tracker, e, no, hAnt, h, wavelengthMetres, twoKEarthRadiusM, scratch, d)
       if (f < worst) (worst = f), (limiting = scratch.obstacleIndex)
     }
     if (terrain !== null && d > 0) {

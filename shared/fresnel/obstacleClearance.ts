@@ -179,6 +179,10 @@ export interface ObstacleTracker {
   slackM: Float64Array
   movedAtM: Float64Array
   f1MaxAtM: Float64Array
+  /** Per obstacle: slack + movement + F1 bound when last evaluated; due again once movement + F1 bound reach it. */
+  dueM: Float64Array
+  /** Smallest dueM: below it no obstacle is due and the path needs no work. */
+  nextDueM: number
   /** Cumulative L1 movement of the aircraft over the flight so far, m. */
   movedM: number
   lastEastM: number
@@ -198,6 +202,8 @@ export function createObstacleTracker(prep: PreparedObstacles): ObstacleTracker 
     slackM: new Float64Array(n).fill(-Infinity),
     movedAtM: new Float64Array(n),
     f1MaxAtM: new Float64Array(n),
+    dueM: new Float64Array(n).fill(-Infinity),
+    nextDueM: -Infinity,
     movedM: 0,
     lastEastM: NaN,
     lastNorthM: NaN,
@@ -217,6 +223,7 @@ export function createObstacleTracker(prep: PreparedObstacles): ObstacleTracker 
  * @param wavelengthMetres carrier wavelength in metres, > 0
  * @param twoKEarthRadiusM 2·k·Re in metres, > 0
  * @param out scratch written with the worst obstacle
+ * @param pathLengthM √(east² + north²) when the caller already has it (default: computed here)
  * @returns the worst fraction; exact below 1, +Infinity when no obstacle comes within one F1 radius
  * @throws never (the caller validates once per flight)
  */
@@ -229,6 +236,7 @@ export function trackedObstacleClearance(
   wavelengthMetres: number,
   twoKEarthRadiusM: number,
   out: ObstacleClearanceScratch,
+  pathLengthM = NaN,
 ): number {
   resetScratch(out)
   const ax = aircraftEastM
@@ -240,17 +248,29 @@ export function trackedObstacleClearance(
   tracker.lastNorthM = ay
   const len2 = ax * ax + ay * ay
   if (!(len2 > 0)) return Infinity
-  const pathM = Math.sqrt(len2)
+  const pathM = pathLengthM === pathLengthM ? pathLengthM : Math.sqrt(len2)
   const f1Max = 0.5 * Math.sqrt(wavelengthMetres * pathM)
-  const { prep, slackM, movedAtM, f1MaxAtM } = tracker
   const moved = tracker.movedM
+  // slack − (moved − movedAt) − (f1Max − f1MaxAt) > 0 for every obstacle, as one comparison with the soonest due
+  const level = moved + f1Max
+  if (level < tracker.nextDueM) return Infinity
+  const { prep, slackM, movedAtM, f1MaxAtM, dueM } = tracker
   const dh = aircraftHeightM - groundAntennaHeightM
+  let nextDue = Infinity
   for (let o = 0; o < slackM.length; o++) {
-    if (slackM[o]! - (moved - movedAtM[o]!) - (f1Max - f1MaxAtM[o]!) > 0) continue
-    slackM[o] = evaluateObstacle(prep, o, ax, ay, len2, pathM, f1Max, groundAntennaHeightM, dh, wavelengthMetres, twoKEarthRadiusM, true, out)
+    if (level < dueM[o]!) {
+      if (dueM[o]! < nextDue) nextDue = dueM[o]!
+      continue
+    }
+    const slack = evaluateObstacle(prep, o, ax, ay, len2, pathM, f1Max, groundAntennaHeightM, dh, wavelengthMetres, twoKEarthRadiusM, true, out)
+    slackM[o] = slack
     movedAtM[o] = moved
     f1MaxAtM[o] = f1Max
+    const due = slack + level
+    dueM[o] = due
+    if (due < nextDue) nextDue = due
   }
+  tracker.nextDueM = nextDue
   return out.fraction
 }
 function record(out: ObstacleClearanceScratch, f: number, o: number, c: number, f1: number, d1: number): void {
