@@ -254,6 +254,25 @@ export function trackedObstacleClearance(
   // slack − (moved − movedAt) − (f1Max − f1MaxAt) > 0 for every obstacle, as one comparison with the soonest due
   const level = moved + f1Max
   if (level < tracker.nextDueM) return Infinity
+  // the rare work lives in its own function so this front stays small enough to inline into callers' loops
+  return evaluateDueObstacles(tracker, ax, ay, len2, pathM, f1Max, level, groundAntennaHeightM, aircraftHeightM, wavelengthMetres, twoKEarthRadiusM, out)
+}
+
+function evaluateDueObstacles(
+  tracker: ObstacleTracker,
+  ax: number,
+  ay: number,
+  len2: number,
+  pathM: number,
+  f1Max: number,
+  level: number,
+  groundAntennaHeightM: number,
+  aircraftHeightM: number,
+  wavelengthMetres: number,
+  twoKEarthRadiusM: number,
+  out: ObstacleClearanceScratch,
+): number {
+  const moved = tracker.movedM
   const { prep, slackM, movedAtM, f1MaxAtM, dueM } = tracker
   const dh = aircraftHeightM - groundAntennaHeightM
   let nextDue = Infinity
