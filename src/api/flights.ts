@@ -1,6 +1,7 @@
 import type { ListResult } from '@shared/types/api'
 import type { FlightAnalysis } from '@shared/analysis/types'
 import type { ColumnMapping } from '@shared/import/mapping'
+import type { SignalLogMapping } from '@shared/import/signalLog'
 import type {
   FlightDetailDto,
   FlightDto as SharedFlightDto,
@@ -50,6 +51,8 @@ export interface NewFlightFields {
   flownOn: string
   notes: string
   mapping: ColumnMapping | null
+  /** How to read a GPX track's separate signal log; required with one. */
+  signalMapping?: SignalLogMapping | null
 }
 
 export interface FlightUpdate {
@@ -99,6 +102,7 @@ export function createFlight(
   form.append('flownOn', fields.flownOn)
   form.append('notes', fields.notes)
   if (fields.mapping) form.append('mapping', JSON.stringify(fields.mapping))
+  if (signalFile && fields.signalMapping) form.append('signalMapping', JSON.stringify(fields.signalMapping))
   // files last: multer sees the fields first
   form.append('file', file, file.name)
   if (signalFile) form.append('signalFile', signalFile, signalFile.name)

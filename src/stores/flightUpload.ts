@@ -17,6 +17,7 @@ import {
   type LogPreview,
 } from '@/lib/logPreview'
 import { importProgress } from '@/lib/importProgress'
+import { signalLogMappingIssues, toSignalLogMapping } from '@/lib/signalLogMapping'
 
 export type UploadPhase = 'form' | 'sending' | 'processing' | 'ready' | 'failed'
 
@@ -52,6 +53,8 @@ export const useFlightUploadStore = defineStore('flightUpload', () => {
   const progress = computed(() => importProgress(sentFraction.value, status.value))
   const mappingIssues = computed(() => {
     if (!mapping.value) return []
+    // a GPX track's signal log has no position columns: it is checked as the server reads it
+    if (kind.value === 'gpx') return signalLogMappingIssues(mapping.value).map(friendlyMappingMessage)
     const r = columnMappingSchema.safeParse(mapping.value)
     return r.success ? [] : [...new Set(r.error.issues.map((i) => friendlyMappingMessage(i.message)))]
   })
@@ -143,7 +146,14 @@ export const useFlightUploadStore = defineStore('flightUpload', () => {
     status.value = null
     failure.value = null
     try {
-      const res = await flightsApi.createFlight({ ...fields, mapping: mapping.value }, file.value, signalFile.value, (done, totalBytes) => {
+      // GPX: the edited mapping describes the separate signal log, sent as signalMapping
+      const gpx = kind.value === 'gpx'
+      const sent = {
+        ...fields,
+        mapping: gpx ? null : mapping.value,
+        signalMapping: gpx && signalFile.value && mapping.value ? toSignalLogMapping(mapping.value) : null,
+      }
+      const res = await flightsApi.createFlight(sent, file.value, signalFile.value, (done, totalBytes) => {
         sentFraction.value = totalBytes > 0 ? done / totalBytes : 0
       })
       sentFraction.value = 1
