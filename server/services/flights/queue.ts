@@ -17,6 +17,9 @@ export interface AnalyseJob {
   recomputeDistances: boolean
 }
 
+/** This instance's import workers, woken when it queues an import rather than waiting for their next poll. */
+const importWorkers: string[] = []
+
 let handlers: { runImport: (id: number) => Promise<void>; analyse: (job: AnalyseJob) => Promise<void> } | null = null
 
 async function open(withWorkers: boolean): Promise<PgBoss> {
@@ -41,9 +44,10 @@ export async function startFlightJobs(h: NonNullable<typeof handlers>): Promise<
   boss = await starting
   const opts = { pollingIntervalSeconds: config().jobPollSeconds, batchSize: 1 }
   for (let i = 0; i < IMPORT_WORKERS; i++) {
-    await boss.work<{ importId: number }>(IMPORT_QUEUE, opts, async ([job]) => {
+    const id = await boss.work<{ importId: number }>(IMPORT_QUEUE, opts, async ([job]) => {
       if (job) await handlers!.runImport(job.data.importId)
     })
+    importWorkers.push(id)
   }
   await boss.work<AnalyseJob>(ANALYSE_QUEUE, opts, async ([job]) => {
     if (job) await handlers!.analyse(job.data)
@@ -55,6 +59,7 @@ export async function stopFlightJobs(): Promise<void> {
   const b = boss ?? (starting ? await starting.catch(() => null) : null)
   boss = null
   starting = null
+  importWorkers.length = 0
   if (b) await b.stop({ graceful: true, wait: true, timeout: 20_000 })
 }
 
@@ -68,8 +73,10 @@ async function sender(): Promise<PgBoss> {
 
 /** Queues an import job. */
 export async function enqueueImport(importId: number): Promise<void> {
-  const id = await (await sender()).send(IMPORT_QUEUE, { importId }, { retryLimit: 0, expireInMinutes: 60 })
+  const b = await sender()
+  const id = await b.send(IMPORT_QUEUE, { importId }, { retryLimit: 0, expireInMinutes: 60 })
   if (!id) throw new Error('The import queue refused the job')
+  for (const w of importWorkers) b.notifyWorker(w)
 }
 
 /** Queues a re-analysis job. */
