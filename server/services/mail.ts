@@ -1,4 +1,4 @@
-import nodemailer, { type Transporter } from 'nodemailer'
+import type { Transporter } from 'nodemailer'
 import { config } from '../config.js'
 import { HttpError } from '../errors.js'
 import { mailSinkPort } from './mailSink.js'
@@ -12,7 +12,7 @@ export interface MailMessage {
 
 let cached: { key: string; transport: Transporter } | null = null
 
-function transporter(): Transporter {
+async function transporter(): Promise<Transporter> {
   const cfg = config()
   const sinkPort = cfg.smtpUrl ? null : mailSinkPort()
   if (!cfg.smtpUrl && sinkPort === null) {
@@ -20,6 +20,8 @@ function transporter(): Transporter {
   }
   const key = cfg.smtpUrl ?? `sink:${sinkPort}`
   if (cached?.key !== key) {
+    // Loaded on the first message: most server processes send none.
+    const nodemailer = (await import('nodemailer')).default
     const transport = cfg.smtpUrl
       ? nodemailer.createTransport(cfg.smtpUrl)
       : nodemailer.createTransport({ host: '127.0.0.1', port: sinkPort!, secure: false, ignoreTLS: true })
@@ -34,7 +36,7 @@ function transporter(): Transporter {
  */
 export async function sendMail(msg: MailMessage): Promise<void> {
   try {
-    await transporter().sendMail({ from: config().mailFrom, ...msg })
+    await (await transporter()).sendMail({ from: config().mailFrom, ...msg })
   } catch (err) {
     if (err instanceof HttpError) throw err
     throw new HttpError(503, 'UNAVAILABLE', 'Could not send the e-mail; try again later')

@@ -1,6 +1,6 @@
 import type { AddressInfo } from 'node:net'
 import { SMTPServer } from 'smtp-server'
-import { simpleParser } from 'mailparser'
+import type { simpleParser as SimpleParser } from 'mailparser'
 import { config } from '../config.js'
 import { logger } from '../logger.js'
 import { OutgoingMail } from '../models/OutgoingMail.js'
@@ -9,7 +9,9 @@ let server: SMTPServer | null = null
 let port: number | null = null
 
 async function store(raw: NodeJS.ReadableStream, rcptTo: string[]): Promise<void> {
-  const parsed = await simpleParser(raw as unknown as Parameters<typeof simpleParser>[0])
+  // Loaded on the first message: the parser is a large module most server processes never need.
+  const { simpleParser } = await import('mailparser')
+  const parsed = await simpleParser(raw as unknown as Parameters<typeof SimpleParser>[0])
   await OutgoingMail.create({
     to: rcptTo.join(', '),
     subject: parsed.subject ?? '',

@@ -1,4 +1,3 @@
-import { fromArrayBuffer } from 'geotiff'
 import type { TerrainFormat } from '../../shared/types/course.js'
 import type { ElevationGrid } from '../../shared/terrain/grid.js'
 import { HttpError, badRequest } from '../errors.js'
@@ -61,6 +60,8 @@ async function parseGeoTiff(buf: Buffer): Promise<ElevationGrid> {
   let image
   try {
     const ab = buf.buffer.slice(buf.byteOffset, buf.byteOffset + buf.byteLength) as ArrayBuffer
+    // Loaded on first use: only terrain uploads need the TIFF reader.
+    const { fromArrayBuffer } = await import('geotiff')
     image = await (await fromArrayBuffer(ab)).getImage()
   } catch {
     throw unprocessable('The TIFF could not be read')
