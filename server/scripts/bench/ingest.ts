@@ -2,7 +2,7 @@
 // import through the real HTTP API (upload → parse/validate → COPY → analysis → ready) with the server in a child
 // process whose resident memory is sampled from /proc. Needs its own database (DATABASE_URL).
 // Run: npx tsx server/scripts/bench/ingest.ts [rows=1000000] [bigRows=3000000]
-import { spawn, type ChildProcess } from 'node:child_process'
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process'
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
@@ -101,9 +101,10 @@ async function seedUser(): Promise<{ email: string; password: string; courseId: 
   return { email, password, courseId: course.id, setupId: setup.id }
 }
 
-/** Starts the real server (node + tsx loader, so the pid is the server's own). */
+/** Starts the real server as `npm start` runs it: built ahead of time, plain node (so the pid is the server's own). */
 async function startServer(dataDir: string): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  execFileSync(process.execPath, ['server/scripts/build-server.mjs'], { stdio: 'ignore' })
+  const child = spawn(process.execPath, ['dist-server/index.js'], {
     env: { ...process.env, PORT: String(PORT), HOST: '127.0.0.1', DATA_DIR: dataDir, LOG_LEVEL: process.env.BENCH_SERVER_LOG_LEVEL ?? 'warn', NODE_ENV: process.env.NODE_ENV ?? 'production', JOB_POLL_SECONDS: '0.5' },
     stdio: ['ignore', 'inherit', 'inherit'],
   })
