@@ -6,7 +6,7 @@ import { pgPool } from '../../server/db.js'
 import { groundDistanceM } from '../../shared/geo/localOffset.js'
 import { headerSignature } from '../../shared/import/headerSignature.js'
 import { signedIn, signedInToTeam, type SignedIn } from './helpers.js'
-import { makeCourse } from './fixtures-db.js'
+import { makeCourse, makeSetup } from './fixtures-db.js'
 import { LOGS, mappingText, storedCounts, upload, waitForStatus } from './flights-helpers.js'
 import { useFlightSuite } from './flights-suite.js'
 
@@ -135,6 +135,19 @@ describe('PATCH /api/flights/:id and POST /api/flights/:id/reanalyse', () => {
     const id = await importReady(makeLog(200))
     const res = await s.agent.patch(`/api/flights/${id}`).set('X-CSRF-Token', s.csrf).send({ teamId: 99, createdBy: 1 })
     expect([res.status, res.body.error.code]).toEqual([400, 'VALIDATION_FAILED'])
+  })
+
+  it('answers 404 NOT_FOUND (not 400) when moving a flight to another team\'s course or setup, changing nothing', async () => {
+    const id = await importReady(makeLog(200))
+    const other = await signedIn(app, { role: 'admin' })
+    const foreignCourse = await makeCourse(other.team.id, other.user.id)
+    const foreignSetup = await makeSetup(other.team.id, other.user.id)
+    for (const body of [{ courseId: foreignCourse.id }, { setupId: foreignSetup.id }]) {
+      const res = await s.agent.patch(`/api/flights/${id}`).set('X-CSRF-Token', s.csrf).send({ ...body, name: 'Moved away' })
+      expect([res.status, res.body.error.code]).toEqual([404, 'NOT_FOUND'])
+    }
+    const f = await s.agent.get(`/api/flights/${id}`)
+    expect(f.body).toMatchObject({ courseId, setupId, name: 'Flight', status: 'ready' })
   })
 
   it('re-analyses after a course change, with distances from the new station', async () => {

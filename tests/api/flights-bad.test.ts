@@ -4,7 +4,8 @@ import path from 'node:path'
 import { describe, expect, it } from 'vitest'
 import type { Express } from 'express'
 import { signedIn, type SignedIn } from './helpers.js'
-import { makeCourse } from './fixtures-db.js'
+import { pgPool } from '../../server/db.js'
+import { makeCourse, makeSetup } from './fixtures-db.js'
 import { LOGS, storedCounts, upload, waitForStatus } from './flights-helpers.js'
 import { useFlightSuite } from './flights-suite.js'
 
@@ -90,16 +91,36 @@ describe('POST /api/flights (bad files refused at once)', () => {
     await expectNoTrace()
   })
 
-  it('answers 400 VALIDATION_FAILED for a missing mapping, bad fields or another team\'s course', async () => {
+  it('answers 400 VALIDATION_FAILED for a missing mapping or bad fields', async () => {
     const noMap = await upload(s, path.join(LOGS, 'comma.csv'), { courseId, setupId, mapping: null })
     expect([noMap.status, noMap.body.error.code]).toEqual([400, 'VALIDATION_FAILED'])
-    const other = await signedIn(app, { role: 'admin' })
-    const foreign = await makeCourse(other.team.id, other.user.id)
-    const res = await upload(s, path.join(LOGS, 'comma.csv'), { courseId: foreign.id, setupId, mapping: MAPPING })
-    expect([res.status, res.body.error.code]).toEqual([400, 'VALIDATION_FAILED'])
-    expect(res.body.error.details).toEqual([{ path: 'courseId', message: 'no such course in your team' }])
     const badJson = await upload(s, path.join(LOGS, 'comma.csv'), { courseId, setupId, mapping: '{not json' })
     expect([badJson.status, badJson.body.error.code]).toEqual([400, 'VALIDATION_FAILED'])
+    await expectNoTrace()
+  })
+
+  it('answers 404 NOT_FOUND (not 400) for another team\'s course or setup, the same as for a missing id, keeping nothing', async () => {
+    const other = await signedIn(app, { role: 'admin' })
+    const foreignCourse = await makeCourse(other.team.id, other.user.id)
+    const foreignSetup = await makeSetup(other.team.id, other.user.id)
+    const missing = 2_000_000_000
+    const answers = []
+    for (const ids of [
+      { courseId: foreignCourse.id, setupId },
+      { courseId: missing, setupId },
+      { courseId, setupId: foreignSetup.id },
+      { courseId, setupId: missing },
+    ]) {
+      const res = await upload(s, path.join(LOGS, 'comma.csv'), { ...ids, mapping: MAPPING })
+      expect([res.status, res.body.error.code]).toEqual([404, 'NOT_FOUND'])
+      answers.push(res.body)
+    }
+    expect(answers[0]).toEqual(answers[1])
+    expect(answers[2]).toEqual(answers[3])
+    expect(answers[0].error.details).toEqual([{ path: 'courseId', message: 'not found' }])
+    expect(answers[2].error.details).toEqual([{ path: 'setupId', message: 'not found' }])
+    const { rows } = await pgPool().query<{ n: string }>('SELECT count(*) AS n FROM imports')
+    expect(Number(rows[0]!.n)).toBe(0)
     await expectNoTrace()
   })
 })

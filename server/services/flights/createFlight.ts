@@ -6,7 +6,7 @@ import { detectLayout } from '../../../shared/import/detect.js'
 import { headerSignature } from '../../../shared/import/headerSignature.js'
 import { splitQuoted } from '../../../shared/import/recordSplitter.js'
 import { pgPool } from '../../db.js'
-import { badRequest } from '../../errors.js'
+import { HttpError, badRequest } from '../../errors.js'
 import { parseWith } from '../../middleware/validate.js'
 import { Course } from '../../models/Course.js'
 import { FlightImport } from '../../models/FlightImport.js'
@@ -64,7 +64,7 @@ export interface UploadedFile {
 
 /**
  * Loads a course and a setup of the caller's team, as the flight will point at them.
- * @throws 400 naming the field when either is not in the team
+ * @throws 404 NOT_FOUND naming the field when either is missing or another team's (the same answer for both)
  */
 export async function teamCourseAndSetup(teamId: number, courseId: number, setupId: number): Promise<{ course: Course; setup: LinkSetup }> {
   const [course, setup] = await Promise.all([
@@ -72,10 +72,10 @@ export async function teamCourseAndSetup(teamId: number, courseId: number, setup
     LinkSetup.findOne({ where: { id: setupId, teamId } }),
   ])
   const issues = [
-    ...(course ? [] : [{ path: 'courseId', message: 'no such course in your team' }]),
-    ...(setup ? [] : [{ path: 'setupId', message: 'no such setup in your team' }]),
+    ...(course ? [] : [{ path: 'courseId', message: 'not found' }]),
+    ...(setup ? [] : [{ path: 'setupId', message: 'not found' }]),
   ]
-  if (issues.length) throw badRequest('Unknown course or setup', issues)
+  if (issues.length) throw new HttpError(404, 'NOT_FOUND', 'Course or setup not found', issues)
   return { course: course!, setup: setup! }
 }
 
