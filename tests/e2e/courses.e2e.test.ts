@@ -1,6 +1,8 @@
 import { mkdirSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import type { LinkSetupDto } from '../../shared/types/setup.js'
+import { TEST_SETUP, flightCsv, generateTestFlight, uploadAndWait } from './support/flightFixtures'
 
 const SHOTS = 'tests/e2e/screenshots'
 const stamp = `${Date.now()}-${Math.floor(Math.random() * 1e6)}`
@@ -83,6 +85,33 @@ describe('courses and link setups', () => {
     await expect(page.locator('.leaflet-overlay-pane path').count()).resolves.toBeGreaterThanOrEqual(3)
     await page.locator('[data-terrain=none]').waitFor()
     await shot(page, 'detail-desktop')
+    await page.close()
+  })
+
+  it('takes the planned route from a flight flown on the course, then saves it with the course', async () => {
+    const courseId = Number(courseUrl.split('/').pop())
+    const token = ((await (await context.request.get(`${base}/api/auth/csrf`)).json()) as { token: string }).token
+    const setup = (await (await context.request.post(`${base}/api/setups`, { data: TEST_SETUP, headers: { 'X-CSRF-Token': token } })).json()) as LinkSetupDto
+    // 2 rows a second keeps the import short; the track still has the leg's turns
+    await uploadAndWait(context.request, base, { courseId, setupId: setup.id }, 'Route survey', flightCsv(generateTestFlight(2)))
+    const page = await context.newPage()
+    await page.goto(courseUrl)
+    await page.locator('.leaflet-tile-loaded').first().waitFor()
+    await expect(page.locator('path.planned-route').count()).resolves.toBe(0)
+    await page.click('[data-field=route-flight]')
+    await page.getByRole('option', { name: /Route survey/ }).click()
+    await page.click('[data-action=route-from-flight]')
+    await page.locator('path.planned-route').waitFor()
+    const readout = await page.locator('[data-readout=route]').innerText()
+    const points = Number(/(\d+) points/.exec(readout)?.[1])
+    // simplified: a handful of corners, far fewer than the fixes fetched
+    expect(points).toBeGreaterThanOrEqual(2)
+    expect(points).toBeLessThan(200)
+    await shot(page, 'route-from-flight')
+    await page.click('[data-action=save-course]')
+    await page.getByText('Course saved').waitFor()
+    const saved = (await (await context.request.get(`${base}/api/courses/${courseId}`)).json()) as { route: { coordinates: unknown[] } | null }
+    expect(saved.route?.coordinates).toHaveLength(points)
     await page.close()
   })
 
