@@ -70,6 +70,11 @@ export function createApp(): Express {
     app.use(express.static(DIST, { index: false, maxAge: '1h' }))
     app.get('/{*splat}', (_req, res) => res.sendFile(path.join(DIST, 'index.html')))
   }
+  // Our own last 404 (no client build, or a non-GET outside /api) keeps helmet's headers, which Express's
+  // built-in one would replace with its own CSP.
+  app.use((_req, res) => {
+    res.status(404).type('text/plain').send('Not found')
+  })
   app.use(errorHandler)
   return app
 }
