@@ -4,6 +4,9 @@ import zlib from 'node:zlib'
 import Papa from 'papaparse'
 import { describe, expect, it } from 'vitest'
 import { pgPool } from '../../server/db.js'
+import { config } from '../../server/config.js'
+import { flightJobsService } from '../../server/services/flights/jobs.js'
+import { serverFileName } from '../../server/services/flights/storage.js'
 import type { ColumnMapping } from '../../shared/import/mapping.js'
 import type { SignedIn } from './helpers.js'
 import { FIXTURE_STATION } from './fixtures-db.js'
@@ -250,5 +253,53 @@ describe('POST /api/flights (GPX)', () => {
     const res = await upload(s, Buffer.from(xml), { courseId, setupId, filename: 'plain.gpx' })
     expect([res.status, res.body.error.code]).toEqual([422, 'UNPROCESSABLE'])
     expect((await storedCounts()).flights).toBe(0)
+  })
+})
+
+describe('flight jobs start (interrupted imports)', () => {
+  /** An import record as a killed process leaves it: unfinished, last touched ten minutes ago, no pg-boss job. */
+  async function orphanImport(status: 'importing' | 'analysing', flightId: number | null, tempFile: string | null): Promise<number> {
+    const { rows } = await pgPool().query<{ id: string }>(
+      `INSERT INTO imports (flight_id, team_id, created_by, kind, status, progress, params, temp_file, source_format, created_at, updated_at)
+       VALUES (COALESCE($1, nextval(pg_get_serial_sequence('flights', 'id'))), $2, $3, 'create', $4, $5, $6, $7, 'delimited',
+               now() - interval '10 minutes', now() - interval '10 minutes')
+       RETURNING flight_id AS id`,
+      [flightId, s.team.id, s.user.id, status, { bytesDone: 0, bytesTotal: 100, rowsDone: 0 },
+        { courseId, setupId, name: 'Killed', flownOn: '2026-05-16', notes: '', mapping: JSON.parse(mappingText('comma.csv')), compressed: false }, tempFile],
+    )
+    return Number(rows[0]!.id)
+  }
+
+  /** Restarts this process's workers, as a fresh process would start them. */
+  async function restartWorkers(): Promise<void> {
+    await flightJobsService.stop()
+    await flightJobsService.start()
+  }
+
+  it('fails an import left importing by a killed process, removes its temp file and stores nothing', async () => {
+    const tempFile = path.join(config().dataDir, 'tmp', serverFileName())
+    fs.mkdirSync(path.dirname(tempFile), { recursive: true })
+    fs.copyFileSync(path.join(LOGS, 'comma.csv'), tempFile)
+    const id = await orphanImport('importing', null, tempFile)
+    await restartWorkers()
+    const st = await waitForStatus(s, id)
+    expect(st).toMatchObject({ status: 'failed', stored: false, failure: { status: 503, code: 'UNAVAILABLE' } })
+    expect(st.failure!.message).toMatch(/interrupted; upload the file again/)
+    expect(fs.existsSync(tempFile)).toBe(false)
+    expect((await storedCounts()).flights).toBe(0)
+  })
+
+  it('queues the analysis again for an import killed after its samples committed', async () => {
+    const res = await upload(s, path.join(LOGS, 'comma.csv'), { courseId, setupId, mapping: mappingText('comma.csv') })
+    expect(res.status, JSON.stringify(res.body)).toBe(202)
+    const id = res.body.id as number
+    expect((await waitForStatus(s, id)).status).toBe('ready')
+    await pgPool().query(`UPDATE flights SET status = 'analysing', analysis = NULL WHERE id = $1`, [id])
+    await orphanImport('analysing', id, null)
+    await restartWorkers()
+    const st = await waitForStatus(s, id)
+    expect(st).toMatchObject({ status: 'ready', stored: true, failure: null })
+    const f = await s.agent.get(`/api/flights/${id}`)
+    expect(f.body.analysis).not.toBeNull()
   })
 })

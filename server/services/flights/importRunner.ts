@@ -168,8 +168,8 @@ export async function runImport(importId: number): Promise<void> {
   await imp.update({ status: flight?.status === 'failed' ? 'failed' : 'ready', tempFile: null })
 }
 
-/** Moves the upload to raw/ (compressed); a re-import's temp copy is simply removed. */
-async function keepOriginal(imp: FlightImport, compressed: boolean): Promise<void> {
+/** Moves the upload to raw/ (compressed) and records it on the flight; a re-import reads the kept original in place. */
+export async function keepOriginal(imp: FlightImport, compressed: boolean): Promise<void> {
   // A re-import reads the kept original in place.
   if (imp.kind !== 'create') return
   try {

@@ -5,6 +5,8 @@ import { ensureStorageDirs } from './storage.js'
 
 export const IMPORT_QUEUE = 'flight-import'
 export const ANALYSE_QUEUE = 'flight-analyse'
+/** pg-boss's default schema (the constructor is given none). */
+const BOSS_SCHEMA = 'pgboss'
 /** Imports running at once in one instance; each holds one database connection for its transaction. */
 const IMPORT_WORKERS = 2
 
@@ -77,6 +79,24 @@ export async function enqueueImport(importId: number): Promise<void> {
   const id = await b.send(IMPORT_QUEUE, { importId }, { retryLimit: 0, expireInMinutes: 60 })
   if (!id) throw new Error('The import queue refused the job')
   for (const w of importWorkers) b.notifyWorker(w)
+}
+
+/**
+ * Which of these imports still have a job waiting, retrying or running (in any instance). A job of a killed
+ * process stays 'active' until pg-boss expires it (expireInMinutes), after which it no longer counts.
+ * @param importIds import record ids
+ * @returns the ids whose job is live
+ */
+export async function liveImportJobs(importIds: readonly number[]): Promise<Set<number>> {
+  if (!importIds.length) return new Set()
+  const { rows } = await (await sender())
+    .getDb()
+    .executeSql(
+      `SELECT DISTINCT (data->>'importId')::int AS id FROM ${BOSS_SCHEMA}.job
+        WHERE name = $1 AND state IN ('created', 'retry', 'active') AND (data->>'importId')::int = ANY($2::int[])`,
+      [IMPORT_QUEUE, importIds],
+    )
+  return new Set(rows.map((r: { id: number }) => Number(r.id)))
 }
 
 /** Queues a re-analysis job. */
