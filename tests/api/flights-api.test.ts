@@ -80,6 +80,10 @@ describe('GET /api/flights', () => {
     expect((await s.agent.get(`/api/flights?courseId=${otherCourse.id}`)).body.total).toBe(0)
     expect((await s.agent.get('/api/flights?from=2026-05-17')).body.total).toBe(0)
     expect((await s.agent.get('/api/flights?from=2026-05-16&to=2026-05-16')).body.total).toBe(3)
+    // the three share a flight date: ties go by id, so pages of one never repeat or skip a flight
+    const paged = []
+    for (const page of [1, 2, 3]) paged.push((await s.agent.get(`/api/flights?sort=-flownOn&pageSize=1&page=${page}`)).body.items[0].id)
+    expect(paged).toEqual([a, b, c])
   })
 
   it('answers 400 VALIDATION_FAILED for a sort key outside the whitelist or a repeated parameter', async () => {

@@ -11,6 +11,7 @@ import { WGS84_A_M, WGS84_E2 } from '../../../shared/geo/wgs84.js'
 import { Flight } from '../../models/Flight.js'
 import { FlightImport } from '../../models/FlightImport.js'
 import { teamCourseAndSetup } from './createFlight.js'
+import { orderThenId, searchAnyColumn } from '../listQuery.js'
 import { enqueueAnalysis } from './queue.js'
 import { insideDataDir, removeFiles } from './storage.js'
 
@@ -69,11 +70,6 @@ export function toFlightDto(f: Flight): FlightDto {
 
 const LIST_ATTRIBUTES = { exclude: ['analysis', 'rowErrors', 'mapping', 'rawFile', 'progress'] }
 
-/** Escapes LIKE wildcards so user text matches literally. */
-function likePattern(q: string): string {
-  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`
-}
-
 /**
  * Lists the team's stored flights with filters, a whitelisted sort and paging.
  * @param teamId the caller's team
@@ -87,13 +83,13 @@ export async function listFlights(teamId: number, q: FlightListQuery): Promise<L
   if (q.courseId) where.courseId = q.courseId
   if (q.setupId) where.setupId = q.setupId
   if (q.from || q.to) where.flownOn = { ...(q.from ? { [Op.gte]: q.from } : {}), ...(q.to ? { [Op.lte]: q.to } : {}) }
-  if (q.q) where[Op.or] = [{ name: { [Op.iLike]: likePattern(q.q) } }, { notes: { [Op.iLike]: likePattern(q.q) } }]
+  if (q.q) Object.assign(where, searchAnyColumn(['name', 'notes'], q.q))
   const desc = q.sort.startsWith('-')
   const key = SORT_KEYS[q.sort.replace(/^-/, '') as SortKey]
   const { rows, count } = await Flight.findAndCountAll({
     where,
     attributes: LIST_ATTRIBUTES,
-    order: [[key, desc ? 'DESC' : 'ASC'], ['id', desc ? 'DESC' : 'ASC']],
+    order: orderThenId(key, desc ? 'desc' : 'asc'),
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   })
