@@ -138,8 +138,14 @@ describe('uploads refused before the body is stored', () => {
     await expectRefused(() => terrainUpload(other.agent, { 'X-CSRF-Token': other.csrf }), 404, 'NOT_FOUND')
   })
 
-  it('a writer naming another team’s course and setup: 400 naming both fields, the upload removed from tmp/', async () => {
+  it('a writer naming another team’s course and setup: 404 NOT_FOUND (as for a missing id) naming both fields, the upload removed from tmp/', async () => {
     const other = await signedIn(app, { role: 'pilot' })
-    await expectRefused(() => flightUpload(other.agent, { 'X-CSRF-Token': other.csrf }), 400, 'VALIDATION_FAILED')
+    let details: unknown
+    await expectRefused(async () => {
+      const res = await flightUpload(other.agent, { 'X-CSRF-Token': other.csrf })
+      details = res.body.error?.details
+      return res
+    }, 404, 'NOT_FOUND')
+    expect(details).toEqual([{ path: 'courseId', message: 'not found' }, { path: 'setupId', message: 'not found' }])
   })
 })
