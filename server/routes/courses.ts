@@ -1,6 +1,6 @@
 import express from 'express'
 import multer from 'multer'
-import { courseInputSchema, courseListQuerySchema } from '../../shared/schemas/course.js'
+import { courseInputSchema, courseListQuerySchema, terrainProfileQuerySchema } from '../../shared/schemas/course.js'
 import { parseId, parseWith } from '../middleware/validate.js'
 import { WRITE_ROLES, requireAuth, requireRole } from '../middleware/auth.js'
 import * as courses from '../services/courses.js'
@@ -25,6 +25,11 @@ coursesRouter.get('/', async (req, res) => {
 
 coursesRouter.get('/:courseId', async (req, res) => {
   res.json(await courses.getCourse(req.auth!.teamId, parseId(req.params.courseId, 'courseId')))
+})
+
+coursesRouter.get('/:courseId/terrain/profile', async (req, res) => {
+  const id = parseId(req.params.courseId, 'courseId')
+  res.json(await terrain.courseTerrainProfile(req.auth!.teamId, id, parseWith(terrainProfileQuerySchema, req.query)))
 })
 
 coursesRouter.post('/', write, async (req, res) => {

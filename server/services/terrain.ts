@@ -1,5 +1,6 @@
 import type { AuthContext } from '../types/express.js'
-import type { CourseDto } from '../../shared/types/course.js'
+import type { CourseDto, TerrainProfileDto } from '../../shared/types/course.js'
+import type { TerrainProfileQuery } from '../../shared/schemas/course.js'
 import { HttpError } from '../errors.js'
 import { type ElevationGrid, type GroundProfile, sampleGridBilinear, sampleProfile } from '../../shared/terrain/grid.js'
 import { groundDistanceM } from '../../shared/geo/localOffset.js'
@@ -147,4 +148,22 @@ export async function terrainProfile(
   if (!sampler) return null
   const d = groundDistanceM(from.latDeg, from.lonDeg, to.latDeg, to.lonDeg)
   return sampleProfile(sampler, from, to, n, d)
+}
+
+/**
+ * The course's terrain between two points, for the flight screen's Fresnel profile.
+ * @param teamId the caller's team (another team's course answers 404)
+ * @param courseId the course
+ * @param q the two ends in degrees and the number of samples
+ * @returns distances and elevations (null outside the data)
+ * @throws HttpError 404 when the course is not the team's or has no terrain
+ */
+export async function courseTerrainProfile(teamId: number, courseId: number, q: TerrainProfileQuery): Promise<TerrainProfileDto> {
+  await findCourseRow(teamId, courseId)
+  const p = await terrainProfile(courseId, { latDeg: q.fromLat, lonDeg: q.fromLon }, { latDeg: q.toLat, lonDeg: q.toLon }, q.n)
+  if (!p) throw new HttpError(404, 'NOT_FOUND', 'This course has no terrain')
+  return {
+    distanceM: Array.from(p.distanceM),
+    elevationM: Array.from(p.elevationM, (e) => (Number.isNaN(e) ? null : e)),
+  }
 }

@@ -63,3 +63,13 @@ export const courseListQuerySchema = z.object({
   offset: z.coerce.number().int().min(0).max(1_000_000).default(0),
 })
 export type CourseListQuery = z.infer<typeof courseListQuerySchema>
+
+/** Query of GET /api/courses/:courseId/terrain/profile: the two ends in degrees and the number of samples. */
+export const terrainProfileQuerySchema = z.object({
+  fromLat: z.coerce.number().min(-90).max(90),
+  fromLon: z.coerce.number().min(-180).max(180),
+  toLat: z.coerce.number().min(-90).max(90),
+  toLon: z.coerce.number().min(-180).max(180),
+  n: z.coerce.number().int().min(2, 'n must be at least 2').max(512, 'n must be at most 512').optional().default(128),
+})
+export type TerrainProfileQuery = z.infer<typeof terrainProfileQuerySchema>

@@ -67,6 +67,14 @@ export interface CourseDto {
   updatedAt: string
 }
 
+/** GET /api/courses/:courseId/terrain/profile: evenly spaced terrain samples from one point to another. */
+export interface TerrainProfileDto {
+  /** Ground distance from the start, metres. */
+  distanceM: number[]
+  /** Terrain elevation above mean sea level, metres; null outside the uploaded data. */
+  elevationM: (number | null)[]
+}
+
 /** Sortable columns of GET /api/courses. */
 export const COURSE_SORT_KEYS = ['name', 'createdAt', 'updatedAt'] as const
 export type CourseSortKey = (typeof COURSE_SORT_KEYS)[number]

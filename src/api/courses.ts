@@ -1,5 +1,5 @@
 import type { ListResult } from '@shared/types/api'
-import type { CourseDto } from '@shared/types/course'
+import type { CourseDto, TerrainProfileDto } from '@shared/types/course'
 import type { CourseInput, CourseListQuery } from '@shared/schemas/course'
 import { apiDelete, apiGet, apiPost, apiPut, upload, type UploadProgress } from './client'
 
@@ -25,3 +25,15 @@ export function uploadTerrain(id: number, file: File, onProgress?: UploadProgres
   return upload<CourseDto>(`/courses/${id}/terrain`, form, onProgress)
 }
 export const deleteTerrain = (id: number) => apiDelete<CourseDto>(`/courses/${id}/terrain`)
+
+/** The course terrain sampled at n evenly spaced points from one position to another; 404 without terrain. */
+export function getTerrainProfile(
+  id: number,
+  from: { lat: number; lon: number },
+  to: { lat: number; lon: number },
+  n: number,
+): Promise<TerrainProfileDto> {
+  return apiGet<TerrainProfileDto>(
+    `/courses/${id}/terrain/profile${listQuery({ fromLat: from.lat, fromLon: from.lon, toLat: to.lat, toLon: to.lon, n })}`,
+  )
+}

@@ -1,4 +1,4 @@
-import { computed } from 'vue'
+import { computed, watch } from 'vue'
 import { storeToRefs } from 'pinia'
 import { beamwidthFromGainDeg } from '@shared/antenna/beamwidth'
 import { useFlightDetailStore } from '@/stores/flightDetail'
@@ -19,7 +19,7 @@ export function useFlightScreen() {
   const store = useFlightDetailStore()
   const timeline = useTimelineStore()
   const units = useUnits()
-  const { flight, course, setup, samples, dropouts, fadeMarginDb } = storeToRefs(store)
+  const { flight, course, setup, samples, dropouts, fadeMarginDb, terrainError } = storeToRefs(store)
   const { currentMs } = storeToRefs(timeline)
 
   const analysis = computed(() => flight.value?.analysis ?? null)
@@ -137,6 +137,22 @@ export function useFlightScreen() {
     signalCursor.value && sensitivityDbm.value !== null ? [signalCursor.value[0], signalCursor.value[1] - sensitivityDbm.value] : null,
   )
 
+  // the course terrain under the path at the chosen moment (the store debounces and caches per moment)
+  watch(
+    [cursorLatLon, () => course.value?.hasTerrain],
+    ([ll]) => {
+      if (ll) store.requestTerrainProfile(ll.lat, ll.lon)
+    },
+    { immediate: true },
+  )
+  const pathTerrain = computed(() => {
+    const c = course.value
+    const ll = cursorLatLon.value
+    if (!c?.hasTerrain || !ll) return null
+    const t = store.terrainProfileAt(ll.lat, ll.lon)
+    return t ? { distanceM: t.distanceM, elevationM: t.elevationM, datumM: c.groundElevM } : null
+  })
+
   const profile = computed(() => {
     const c = course.value
     const s = setup.value
@@ -153,17 +169,20 @@ export function useFlightScreen() {
         aircraftHeightM: Math.max(0, at.altM),
       },
       c.obstacles,
+      120,
+      pathTerrain.value,
     )
   })
   const profileMoment = computed(() => {
     const c = cursorSample.value
     return c ? `at ${formatElapsed(c.tMs)}, ${c.distM !== null ? units.distance(c.distM) : '?'} out, ${c.altM !== null ? units.height(c.altM) : '?'} up` : ''
   })
-  const flatGroundNote = computed(() =>
-    course.value?.hasTerrain
-      ? 'ground drawn flat with earth curvature; the analysis also used the course terrain'
-      : 'flat ground at the station with earth curvature',
-  )
+  const flatGroundNote = computed(() => {
+    if (!course.value?.hasTerrain) return 'flat ground at the station with earth curvature'
+    if (profile.value?.ground === 'terrain') return 'course terrain with earth curvature'
+    if (terrainError.value) return `terrain unavailable (${terrainError.value}): ground drawn flat with earth curvature`
+    return 'loading the course terrain; ground drawn flat with earth curvature meanwhile'
+  })
 
   const cards = computed(() =>
     analysis.value && sensitivityDbm.value !== null

@@ -1,6 +1,8 @@
 import { localOffsetM } from '@shared/geo/localOffset'
 import { earthBulgeM } from '@shared/fresnel/earthBulge'
 import { fresnelZoneRadiusM, REQUIRED_CLEARANCE_FRACTION } from '@shared/fresnel/zone'
+import { lineOfSightClearance, type LinkPath } from '@shared/fresnel/clearance'
+import { terrainProfileClearance } from '@shared/fresnel/terrainProfile'
 import type { CourseObstacle, LonLat } from '@shared/types/course'
 
 /** The two ends of the radio path at one moment. Heights are above the station's ground. */
@@ -20,13 +22,30 @@ export interface ProfileObstacle {
   fromM: number
   toM: number
   topM: number
+  /** Ground under the obstacle, above the station's ground (0 on the flat drawing). */
+  baseM?: number
+}
+
+/**
+ * The course terrain along the path, as GET /api/courses/:id/terrain/profile answers it, and the datum the
+ * heights are measured from (the course's ground elevation at the station, as the analysis uses).
+ */
+export interface PathTerrain {
+  /** Distances from the station, evenly spaced to the aircraft, metres. */
+  distanceM: readonly number[]
+  /** Terrain above mean sea level, metres; null outside the uploaded data. */
+  elevationM: readonly (number | null)[]
+  /** The station's ground elevation above mean sea level, metres. */
+  datumM: number
 }
 
 /** Everything the Fresnel profile chart draws, in metres. */
 export interface FresnelProfile {
   pathLengthM: number
   distanceM: number[]
-  /** Ground under the path: flat at the station's elevation, raised by the earth's bulge (k = 4/3). */
+  /** Where the ground line comes from: flat at the station's elevation, or the course terrain. */
+  ground: 'flat' | 'terrain'
+  /** Ground under the path above the station's ground, raised by the earth's bulge (k = 4/3). */
   groundM: number[]
   lineOfSightM: number[]
   f1UpperM: number[]
@@ -36,7 +55,7 @@ export interface FresnelProfile {
   obstacles: ProfileObstacle[]
   /** Smallest clearance over the path as a share of the first zone radius (negative: line of sight blocked). */
   minClearanceFraction: number
-  /** What sets that minimum: 'ground' or an obstacle label. */
+  /** What sets that minimum: 'ground', 'terrain' or an obstacle label. */
   limitedBy: string
   limitedAtM: number
   meetsRule: boolean
@@ -119,8 +138,13 @@ export function fresnelProfile(
   ends: ProfileEnds,
   obstacles: readonly CourseObstacle[],
   steps = 120,
+  terrain: PathTerrain | null = null,
 ): FresnelProfile {
   const pathLengthM = localOffsetLength(ends)
+  if (terrain && pathLengthM > 0) {
+    const t = terrainProfileOnPath(ends, obstacles, terrain, pathLengthM)
+    if (t) return t
+  }
   const freqHz = ends.freqMHz * 1e6
   const bars = obstaclesOnPath(ends, obstacles)
   const xs = Array.from({ length: steps + 1 }, (_, i) => (pathLengthM * i) / steps)
@@ -128,6 +152,7 @@ export function fresnelProfile(
   xs.sort((a, b) => a - b)
   const p: FresnelProfile = {
     pathLengthM,
+    ground: 'flat',
     distanceM: xs,
     groundM: [],
     lineOfSightM: [],
@@ -174,4 +199,94 @@ export function fresnelProfile(
 function localOffsetLength(ends: ProfileEnds): number {
   const o = localOffsetM(ends.stationLat, ends.stationLon, ends.aircraftLat, ends.aircraftLon)
   return Math.hypot(o.eastM, o.northM)
+}
+
+/** Terrain heights above the datum at the profile's points, gaps (no data) filled from the nearest known point. */
+function terrainAboveDatum(terrain: PathTerrain): number[] | null {
+  const rel = terrain.elevationM.map((e) => (e === null || !Number.isFinite(e) ? null : e - terrain.datumM))
+  const known = rel.flatMap((v, i) => (v === null ? [] : [i]))
+  if (known.length === 0) return null
+  return rel.map((v, i) => {
+    if (v !== null) return v
+    const nearest = known.reduce((a, b) => (Math.abs(b - i) < Math.abs(a - i) ? b : a))
+    return rel[nearest]!
+  })
+}
+
+/** Linear interpolation of ys over increasing xs, clamped at the ends. */
+function interpolate(xs: readonly number[], ys: readonly number[], x: number): number {
+  if (x <= xs[0]!) return ys[0]!
+  for (let i = 1; i < xs.length; i++) {
+    if (x <= xs[i]!) {
+      const span = xs[i]! - xs[i - 1]!
+      return span > 0 ? ys[i - 1]! + ((ys[i]! - ys[i - 1]!) * (x - xs[i - 1]!)) / span : ys[i]!
+    }
+  }
+  return ys[ys.length - 1]!
+}
+
+/**
+ * The profile over the course terrain: the ground line is the terrain above the datum plus the earth's bulge,
+ * obstacles stand on it, and the clearance comes from the shared core (terrain as knife edges, obstacles on top).
+ * @returns null when the terrain has no data along the path (the caller draws flat ground)
+ */
+function terrainProfileOnPath(
+  ends: ProfileEnds,
+  obstacles: readonly CourseObstacle[],
+  terrain: PathTerrain,
+  pathLengthM: number,
+): FresnelProfile | null {
+  const rel = terrainAboveDatum(terrain)
+  const last = terrain.distanceM[terrain.distanceM.length - 1] ?? 0
+  if (!rel || rel.length < 2 || !(last > 0)) return null
+  // the server measures along the geodesic, this screen in its local plane: stretch onto this path's length
+  const tx = terrain.distanceM.map((d) => (d / last) * pathLengthM)
+  const freqHz = ends.freqMHz * 1e6
+  const path: LinkPath = { freqHz, groundAntennaHeightM: ends.antennaHeightM, aircraftHeightM: ends.aircraftHeightM, pathLengthM }
+  const bars = obstaclesOnPath(ends, obstacles).map((o) => ({ ...o, baseM: interpolate(tx, rel, (o.fromM + o.toM) / 2) }))
+  const xs = [...tx]
+  for (const o of bars) xs.push(Math.max(0, o.fromM), Math.min(pathLengthM, o.toM))
+  xs.sort((a, b) => a - b)
+  const p: FresnelProfile = {
+    pathLengthM,
+    ground: 'terrain',
+    distanceM: xs,
+    groundM: [],
+    lineOfSightM: [],
+    f1UpperM: [],
+    f1LowerM: [],
+    f60LowerM: [],
+    obstacles: bars,
+    minClearanceFraction: 1,
+    limitedBy: 'terrain',
+    limitedAtM: 0,
+    meetsRule: true,
+  }
+  for (const x of xs) {
+    const d2 = Math.max(0, pathLengthM - x)
+    const los = ends.antennaHeightM + ((ends.aircraftHeightM - ends.antennaHeightM) * x) / pathLengthM
+    const r = fresnelZoneRadiusM(freqHz, x, d2)
+    p.groundM.push(interpolate(tx, rel, x) + earthBulgeM(x, d2))
+    p.lineOfSightM.push(los)
+    p.f1UpperM.push(los + r)
+    p.f1LowerM.push(los - r)
+    p.f60LowerM.push(los - REQUIRED_CLEARANCE_FRACTION * r)
+  }
+  const worst = terrainProfileClearance(path, Float64Array.from(tx), Float64Array.from(rel))
+  let min = worst?.clearanceFraction ?? Infinity
+  if (worst) p.limitedAtM = worst.distanceM
+  for (const o of bars) {
+    for (const x of [o.fromM, (o.fromM + o.toM) / 2, o.toM]) {
+      if (!(x > 0 && x < pathLengthM)) continue
+      const c = lineOfSightClearance(path, x, interpolate(tx, rel, x) + o.topM)
+      if (c.clearanceFraction < min) {
+        min = c.clearanceFraction
+        p.limitedBy = o.label
+        p.limitedAtM = x
+      }
+    }
+  }
+  p.minClearanceFraction = Number.isFinite(min) ? min : 1
+  p.meetsRule = p.minClearanceFraction >= REQUIRED_CLEARANCE_FRACTION
+  return p
 }

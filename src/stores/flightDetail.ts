@@ -1,10 +1,10 @@
 import { acceptHMRUpdate, defineStore } from 'pinia'
 import { computed, ref, shallowRef } from 'vue'
-import type { CourseDto } from '@shared/types/course'
+import type { CourseDto, TerrainProfileDto } from '@shared/types/course'
 import type { LinkSetupDto } from '@shared/types/setup'
 import * as flightsApi from '@/api/flights'
 import type { FlightDetail, SamplesDto } from '@/api/flights'
-import { getCourse } from '@/api/courses'
+import { getCourse, getTerrainProfile } from '@/api/courses'
 import { getSetup } from '@/api/setups'
 import { planSampleRequest, pointsForWidth, type SampleRequest, type TimeWindow } from '@/lib/sampleWindow'
 import { emptySamples, spliceWindow } from '@/lib/sampleMerge'
@@ -12,6 +12,18 @@ import { useTimelineStore } from './timeline'
 
 /** A prefetch older than this (a navigation that never finished) is not reused, ms. */
 const PREFETCH_FRESH_MS = 10_000
+
+/** Terrain samples per Fresnel profile (the API allows up to 512). */
+export const TERRAIN_PROFILE_POINTS = 200
+/** The terrain profile is asked for once the cursor has rested this long, ms (not on every frame of play). */
+export const TERRAIN_PROFILE_DEBOUNCE_MS = 150
+/** Terrain profiles kept, one per moment looked at. */
+const TERRAIN_CACHE_MAX = 200
+
+/** Cache key of a moment's terrain profile: the aircraft's position to about 0.1 m. */
+export function terrainProfileKey(lat: number, lon: number): string {
+  return `${lat.toFixed(6)},${lon.toFixed(6)}`
+}
 
 /** Default fade margin for predicted range, dB (common practice 10–20). */
 export const DEFAULT_FADE_MARGIN_DB = 10
@@ -33,6 +45,10 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
   const refining = ref(false)
   const fadeMarginDb = ref(DEFAULT_FADE_MARGIN_DB)
   const selectedDropout = ref<number | null>(null)
+  /** Terrain between the station and the aircraft, per moment (key: terrainProfileKey); replaced whole. */
+  const terrainProfiles = shallowRef<ReadonlyMap<string, TerrainProfileDto>>(new Map())
+  const terrainError = ref<string | null>(null)
+  let terrainTimer: ReturnType<typeof setTimeout> | null = null
   /** Guards against a slow response overwriting a newer one. */
   let requestSeq = 0
   /** Requests started by prefetch() before the screen mounted, taken over by load(). */
@@ -86,6 +102,7 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
       const lastMs = o.tMs[o.tMs.length - 1] ?? 0
       const req: SampleRequest = { fromMs: 0, toMs: Math.max(1, lastMs, f.analysis?.summary.durationMs ?? 0), maxPoints }
       flight.value = f
+      terrainProfiles.value = new Map()
       course.value = c
       setup.value = s
       overview.value = o
@@ -143,6 +160,41 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
     flight.value = { ...f, status: st.status }
   }
 
+  /**
+   * Asks (debounced) for the course terrain between the station and the aircraft at the chosen moment, when the
+   * course has terrain and the moment is not cached yet; profiles of other flights are dropped on load.
+   */
+  function requestTerrainProfile(lat: number, lon: number): void {
+    if (terrainTimer !== null) clearTimeout(terrainTimer)
+    terrainTimer = null
+    const c = course.value
+    if (!c?.hasTerrain || terrainProfiles.value.has(terrainProfileKey(lat, lon))) return
+    terrainTimer = setTimeout(() => {
+      terrainTimer = null
+      void fetchTerrainProfile(c, lat, lon)
+    }, TERRAIN_PROFILE_DEBOUNCE_MS)
+  }
+
+  async function fetchTerrainProfile(c: CourseDto, lat: number, lon: number): Promise<void> {
+    try {
+      const p = await getTerrainProfile(c.id, { lat: c.stationLat, lon: c.stationLon }, { lat, lon }, TERRAIN_PROFILE_POINTS)
+      if (course.value?.id !== c.id) return
+      const next = new Map(terrainProfiles.value)
+      next.set(terrainProfileKey(lat, lon), p)
+      if (next.size > TERRAIN_CACHE_MAX) next.delete(next.keys().next().value!)
+      terrainProfiles.value = next
+      terrainError.value = null
+    } catch (e) {
+      // the profile falls back to flat ground; the chart says why
+      terrainError.value = e instanceof Error ? e.message : String(e)
+    }
+  }
+
+  /** The cached terrain profile of a moment, or null (not asked for yet, or no terrain). */
+  function terrainProfileAt(lat: number, lon: number): TerrainProfileDto | null {
+    return terrainProfiles.value.get(terrainProfileKey(lat, lon)) ?? null
+  }
+
   function setFadeMargin(db: number): void {
     if (Number.isFinite(db) && db >= 0 && db <= 40) fadeMarginDb.value = db
   }
@@ -167,6 +219,10 @@ export const useFlightDetailStore = defineStore('flightDetail', () => {
     refine,
     selectDropout,
     reanalyse,
+    terrainProfiles,
+    terrainError,
+    requestTerrainProfile,
+    terrainProfileAt,
     setFadeMargin,
   }
 })

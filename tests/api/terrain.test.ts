@@ -128,3 +128,47 @@ describe('POST /api/courses/:courseId/terrain', () => {
     expect([res.status, res.body.error.code]).toEqual([400, 'VALIDATION_FAILED'])
   })
 })
+
+describe('GET /api/courses/:courseId/terrain/profile', () => {
+  const { west, north, stepDeg } = SMALL_TIF
+  // along the centres of pixel row 5, from column 0 to column 40: one sample per pixel
+  const row5 = north - 5.5 * stepDeg
+  const q = (n: number | string, extra = '') =>
+    `fromLat=${row5}&fromLon=${west + 0.5 * stepDeg}&toLat=${row5}&toLon=${west + 40.5 * stepDeg}&n=${n}${extra}`
+
+  it('samples the uploaded terrain between two points, the ridge included; null outside the data', async () => {
+    const s = await signedIn(app)
+    const id = await newCourse(s)
+    await upload(s, id, SMALL_TIF_BYTES, 'small.tif')
+    const res = await s.agent.get(`/api/courses/${id}/terrain/profile?${q(41)}`)
+    expect(res.status).toBe(200)
+    expect(res.body.elevationM).toHaveLength(41)
+    for (const col of [0, 10, 29, 30, 31, 40]) expect(res.body.elevationM[col]).toBeCloseTo(smallTifElevationM(col, 5), 3)
+    // 40 pixels of 0.001° longitude at 52.884°N ≈ 2.69 km
+    expect(res.body.distanceM[0]).toBe(0)
+    expect(res.body.distanceM[40] / 1000).toBeCloseTo(2.69, 2)
+    const outside = await s.agent.get(`/api/courses/${id}/terrain/profile?fromLat=52.87&fromLon=-0.06&toLat=53.5&toLon=0&n=3`)
+    expect(outside.status).toBe(200)
+    expect(outside.body.elevationM[2]).toBeNull()
+    expect(outside.body.elevationM[0]).toBeTypeOf('number')
+  })
+
+  it('answers 404 without terrain and for another team’s course, 400 for a bad query', async () => {
+    const s = await signedIn(app)
+    const id = await newCourse(s)
+    const none = await s.agent.get(`/api/courses/${id}/terrain/profile?${q(8)}`)
+    expect([none.status, none.body.error.code, none.body.error.message]).toEqual([404, 'NOT_FOUND', 'This course has no terrain'])
+    await upload(s, id, SMALL_TIF_BYTES, 'small.tif')
+    const other = await signedInElsewhere(app)
+    const theirs = await other.agent.get(`/api/courses/${id}/terrain/profile?${q(8)}`)
+    expect([theirs.status, theirs.body.error.code]).toEqual([404, 'NOT_FOUND'])
+    expect(JSON.stringify(theirs.body)).not.toContain('elevation')
+    const tooMany = await s.agent.get(`/api/courses/${id}/terrain/profile?${q(513)}`)
+    expect([tooMany.status, tooMany.body.error.code]).toEqual([400, 'VALIDATION_FAILED'])
+    const noTo = await s.agent.get(`/api/courses/${id}/terrain/profile?fromLat=52.87&fromLon=-0.06&n=8`)
+    expect(noTo.status).toBe(400)
+    expect(JSON.stringify(noTo.body.error.details)).toContain('toLat')
+    const badLat = await s.agent.get(`/api/courses/${id}/terrain/profile?${q(8, '&fromLat=91')}`)
+    expect(badLat.status).toBe(400)
+  })
+})

@@ -109,6 +109,37 @@ describe('the flight screen', () => {
     await page.close()
   })
 
+  it('draws the course terrain as the ground of the Fresnel profile once the course has some', async () => {
+    // an SRTM-style tile over the field: level at the station's 95 m, with a 25 m hill on the leg about 1 km out
+    const side = 1201
+    const tile = Buffer.alloc(side * side * 2)
+    for (let r = 0; r < side; r++) {
+      const lat = 53 - r / (side - 1)
+      for (let c = 0; c < side; c++) {
+        const lon = -2 + c / (side - 1)
+        const dxM = (lon + 1.4985) * 68_000
+        const dyM = (lat - 52.4085) * 111_250
+        tile.writeInt16BE(Math.round(95 + 25 * Math.exp(-(dxM * dxM + dyM * dyM) / (250 * 250))), (r * side + c) * 2)
+      }
+    }
+    const flight = (await (await context.request.get(`${base}/api/flights/${flightUrl.split('/').pop()}`)).json()) as { courseId: number }
+    const token = ((await (await context.request.get(`${base}/api/auth/csrf`)).json()) as { token: string }).token
+    const up = await context.request.post(`${base}/api/courses/${flight.courseId}/terrain`, {
+      headers: { 'X-CSRF-Token': token },
+      multipart: { file: { name: 'N52W002.hgt', mimeType: 'application/octet-stream', buffer: tile } },
+    })
+    expect(up.status(), await up.text()).toBe(201)
+    const page = await context.newPage()
+    await openFlight(page)
+    const rows = page.locator('[data-testid=dropouts-table] .el-table__body tr')
+    await rows.last().click()
+    await page.locator('[data-testid=chart-fresnel][data-ground=terrain]').waitFor()
+    await expect(page.locator('[data-testid=fresnel-verdict]').textContent()).resolves.toMatch(/Clearance|blocked/)
+    expect(await paintedPixels(page, 'chart-fresnel')).toBeGreaterThan(2000)
+    await page.locator('#fresnel-panel').screenshot({ path: `${SHOTS}/flight-screen-fresnel-terrain.png` })
+    await page.close()
+  })
+
   it('stays usable at tablet width', async () => {
     const tablet = await browser.newContext({ viewport: TABLET, storageState: await context.storageState() })
     const page = await tablet.newPage()

@@ -73,3 +73,55 @@ describe('fresnelProfile', () => {
     expect(p.f1UpperM[i]! - p.lineOfSightM[i]!).toBeCloseTo(p.lineOfSightM[i]! - p.f1LowerM[i]!, 9)
   })
 })
+
+describe('fresnelProfile over course terrain', () => {
+  // 1 km path sampled every 100 m; the station's ground is 50 m above sea level
+  const flatAt = (m: number) => ({ distanceM: Array.from({ length: 11 }, (_, i) => i * 100), elevationM: Array.from({ length: 11 }, () => m), datumM: 50 })
+  const high = { ...ends, antennaHeightM: 10, aircraftHeightM: 40 }
+
+  it('draws level terrain at the datum like the flat ground, and finds the same clearance', () => {
+    const flat = fresnelProfile(high, [])
+    const t = fresnelProfile(high, [], 120, flatAt(50))
+    expect(t.ground).toBe('terrain')
+    expect(flat.ground).toBe('flat')
+    expect(t.limitedBy).toBe('terrain')
+    expect(t.groundM[0]).toBeCloseTo(0, 9)
+    // the terrain points are 100 m apart, the flat check is finer: equal within the sampling
+    expect(t.minClearanceFraction).toBeCloseTo(flat.minClearanceFraction, 1)
+  })
+
+  it('raises the ground line with a hill and finds the line of sight blocked at its top', () => {
+    const hill = flatAt(50)
+    hill.elevationM[6] = 50 + 30
+    const p = fresnelProfile(high, [], 120, hill)
+    const i = p.distanceM.findIndex((d) => Math.abs(d - 600) < 1e-6)
+    expect(p.groundM[i]!).toBeGreaterThan(30)
+    expect(p.limitedBy).toBe('terrain')
+    expect(p.limitedAtM).toBeCloseTo(600, 6)
+    // ray at 600 m: 10 + 30·0.6 = 28 m, below the 30 m hilltop (plus bulge)
+    expect(p.minClearanceFraction).toBeLessThan(0)
+    expect(p.meetsRule).toBe(false)
+  })
+
+  it('stands obstacles on the terrain, so a hedge on a rise limits the clearance', () => {
+    const rise = flatAt(50)
+    for (const i of [3, 4, 5, 6]) rise.elevationM[i] = 58
+    const hedge: CourseObstacle = { id: 'h', kind: 'line', label: 'hedge', heightM: 6, coordinates: [at(-50, 450), at(50, 450)] }
+    const p = fresnelProfile(high, [hedge], 120, rise)
+    expect(p.obstacles[0]!.baseM).toBeCloseTo(8, 6)
+    expect(p.limitedBy).toBe('hedge')
+    const onFlat = fresnelProfile(high, [hedge], 120, flatAt(50))
+    expect(p.minClearanceFraction).toBeLessThan(onFlat.minClearanceFraction)
+  })
+
+  it('fills gaps in the data from the nearest sample, and falls back to flat ground without any data', () => {
+    const gappy = flatAt(50)
+    gappy.elevationM[6] = 80
+    ;(gappy.elevationM as (number | null)[])[7] = null
+    const p = fresnelProfile(high, [], 120, gappy)
+    const i = p.distanceM.findIndex((d) => Math.abs(d - 700) < 1e-6)
+    expect(p.groundM[i]! - p.groundM[p.distanceM.findIndex((d) => Math.abs(d - 600) < 1e-6)]!).toBeCloseTo(0, 0)
+    const none = { ...flatAt(50), elevationM: Array.from({ length: 11 }, () => null) }
+    expect(fresnelProfile(high, [], 120, none).ground).toBe('flat')
+  })
+})
