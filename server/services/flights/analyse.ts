@@ -47,6 +47,49 @@ export async function readSeries(flightId: number, overview?: OverviewBuilder): 
   return c.samples()
 }
 
+/** An analysis computed ahead of storing it: the result, or the reason the core refused the input. */
+export type AnalysisOutcome =
+  | { analysis: object; failureReason: null }
+  | { analysis: null; failureReason: string }
+
+/**
+ * Runs the shared analysis on collected arrays (synchronous, no I/O), so an import can run it while PostgreSQL is
+ * still working through the COPY.
+ * @param series the analysis arrays
+ * @param course the flight's course, null when gone
+ * @param setup the flight's link setup, null when gone
+ * @param terrain the course's terrain sampler, null without terrain
+ * @returns the analysis to store, or the failure reason
+ */
+export function computeAnalysis(
+  series: FlightSamples & { thinnedBy: number },
+  course: Course | null,
+  setup: LinkSetup | null,
+  terrain: Awaited<ReturnType<typeof terrainSampler>>,
+): AnalysisOutcome {
+  try {
+    if (!course || !setup) throw new Error('The flight has no course or setup')
+    const { result } = analyseFlight(buildFlightInput(series, course, setup, terrain))
+    return { analysis: { ...result, thinnedBy: series.thinnedBy, analysedSampleCount: series.timeMs.length }, failureReason: null }
+  } catch (e) {
+    return { analysis: null, failureReason: `Analysis failed: ${e instanceof Error ? e.message : String(e)}` }
+  }
+}
+
+/**
+ * Stores an analysis computed by computeAnalysis: status ends 'ready', or 'failed' with the reason.
+ * @param flightId the flight
+ * @param outcome the computed analysis
+ */
+export async function storeAnalysis(flightId: number, outcome: AnalysisOutcome): Promise<void> {
+  if (outcome.failureReason !== null) {
+    logger.warn({ flightId, err: outcome.failureReason }, 'flight analysis failed')
+    await Flight.update({ status: 'failed', failureReason: outcome.failureReason }, { where: { id: flightId } })
+    return
+  }
+  await Flight.update({ analysis: outcome.analysis, analysisVersion: METHOD_VERSION, status: 'ready', failureReason: null }, { where: { id: flightId } })
+}
+
 /**
  * Runs the shared analysis for a stored flight and saves the result with the method version; status ends 'ready',
  * or 'failed' with the reason when the core refuses the input.

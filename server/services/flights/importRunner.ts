@@ -10,7 +10,8 @@ import { FlightImport } from '../../models/FlightImport.js'
 import type { ImportFailure, ImportProgress } from '../../../shared/types/flight.js'
 import type { RowReport } from '../../../shared/import/rowReport.js'
 import type { SampleRow } from '../../../shared/import/rowConverter.js'
-import { analyseAndStore } from './analyse.js'
+import { computeAnalysis, storeAnalysis, type AnalysisOutcome } from './analyse.js'
+import { terrainSampler } from '../terrain.js'
 import { CopyRowWriter, SAMPLE_COPY_COLUMNS } from './copyWriter.js'
 import { scanDelimitedToCopy } from './copyScan.js'
 import type { RowSink } from './delimitedScan.js'
@@ -47,12 +48,22 @@ function progressReporter(importId: number, bytesTotal: number) {
 
 interface ScanOutcome {
   report: RowReport
-  collector: SeriesCollector
   overview: OverviewBuilder
 }
 
-/** Parses the file and COPYs its rows on `client` (inside the caller's transaction). */
-async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course, compressed: boolean, bytesTotal: number): Promise<ScanOutcome> {
+/**
+ * Parses the file and COPYs its rows on `client` (inside the caller's transaction). `whileDraining` gets the
+ * analysis arrays once every row is parsed and accepted, and runs while PostgreSQL still works through the queued COPY.
+ */
+async function copyRows(
+  client: pg.PoolClient,
+  imp: FlightImport,
+  course: Course,
+  setup: LinkSetup | null,
+  compressed: boolean,
+  bytesTotal: number,
+  whileDraining: (collector: SeriesCollector) => void,
+): Promise<ScanOutcome> {
   // A deep write buffer lets parsing run ahead while PostgreSQL works through the previous chunks.
   const copy = client.query(copyStreams.from(`COPY samples (${SAMPLE_COPY_COLUMNS}) FROM STDIN`, { highWaterMark: COPY_BUFFER_BYTES }))
   // Errors reach the writer through drain/finish waits; this listener only keeps a late one (after the connection
@@ -60,7 +71,6 @@ async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course
   copy.on('error', () => undefined)
   const writer = new CopyRowWriter(copy, imp.flightId)
   const collector = new SeriesCollector()
-  const setup = await LinkSetup.findByPk(imp.params.setupId, { attributes: ['sensitivityDbm'] })
   const overview = new OverviewBuilder(setup?.sensitivityDbm ?? -1e9)
   const report = progressReporter(imp.id, bytesTotal)
   const sink: RowSink = {
@@ -94,9 +104,13 @@ async function copyRows(client: pg.PoolClient, imp: FlightImport, course: Course
   }
   const maxBad = config().badRowShare
   if (rowReport.refused(maxBad)) throw unprocessable(rowReport.refusalMessage(maxBad), rowIssues(rowReport.first))
+  // Queue the last rows first (the delimited scanner already has), so PostgreSQL has work while this thread is busy.
+  const queued = writer.flush(true)
+  whileDraining(collector)
+  await queued
   await writer.end()
   report(bytesTotal, rowReport.goodRows, true)
-  return { report: rowReport, collector, overview }
+  return { report: rowReport, overview }
 }
 
 /** Turns any error into the failure record kept on the import. */
@@ -108,8 +122,8 @@ function toFailure(e: unknown): ImportFailure {
 
 /**
  * The import job: one transaction creates (or, on re-import, refills) the flight and COPYs its samples; a refused
- * file rolls everything back and leaves only the failure on the import record. Then the analysis runs on the arrays
- * collected while parsing, and the original is kept compressed.
+ * file rolls everything back and leaves only the failure on the import record. The analysis runs on the arrays
+ * collected while parsing, while the COPY drains; it is stored after the commit, and the original is kept compressed.
  * @param importId the import record
  */
 export async function runImport(importId: number): Promise<void> {
@@ -119,11 +133,15 @@ export async function runImport(importId: number): Promise<void> {
   const p = imp.params
   let client: pg.PoolClient | null = null
   let outcome: ScanOutcome
+  let analysed: AnalysisOutcome | null = null
+  let archiving: Promise<string | null> | null = null
   const compressed = imp.params.compressed === true
   const t0 = performance.now()
+  let t1 = t0
   try {
     const course = await Course.findByPk(p.courseId)
     if (!course) throw unprocessable('The course no longer exists')
+    const [setup, terrain] = await Promise.all([LinkSetup.findByPk(p.setupId), terrainSampler(course.id)])
     const { size } = await import('node:fs/promises').then((f) => f.stat(imp.tempFile!))
     client = await pgPool().connect()
     await client.query('BEGIN')
@@ -136,7 +154,14 @@ export async function runImport(importId: number): Promise<void> {
     } else {
       await client.query('DELETE FROM samples WHERE flight_id = $1', [imp.flightId])
     }
-    outcome = await copyRows(client, imp, course, compressed, size)
+    // The analysis needs every row but not the stored ones: it runs while PostgreSQL drains the COPY queue, and
+    // is stored only after the samples commit.
+    outcome = await copyRows(client, imp, course, setup, compressed, size, (collector) => {
+      t1 = performance.now()
+      analysed = computeAnalysis(collector.samples(), course, setup, terrain)
+      // Compressing the original (thread pool) overlaps the rest of the COPY too; it is recorded after the commit.
+      archiving = archiveUpload(imp, compressed)
+    })
     await client.query(
       `UPDATE flights SET row_count = $2, bad_row_count = $3, row_errors = $4, mapping = $5, status = 'analysing',
          analysis = NULL, analysis_version = NULL, failure_reason = NULL, updated_at = now() WHERE id = $1`,
@@ -150,16 +175,16 @@ export async function runImport(importId: number): Promise<void> {
   } catch (e) {
     // Dropping the connection aborts an open COPY and rolls the transaction back in one step.
     client?.release(true)
-    if (imp.kind === 'create') await removeFiles(imp.tempFile, p.signalFile)
+    const raw = await archiving
+    if (imp.kind === 'create') await removeFiles(imp.tempFile, p.signalFile, raw)
     await imp.update({ status: 'failed', failure: toFailure(e), tempFile: null })
     return
   }
   await imp.update({ status: 'analysing' })
-  const t1 = performance.now()
-  // Compressing the original runs in the thread pool while the analysis uses this thread.
-  await Promise.all([analyseAndStore(imp.flightId, outcome.collector.samples()), keepOriginal(imp, compressed)])
+  const t2 = performance.now()
+  await Promise.all([storeAnalysis(imp.flightId, analysed!), archiving!.then((raw) => recordOriginal(imp, raw))])
   logger.info(
-    { flightId: imp.flightId, rows: outcome.report.goodRows, importMs: Math.round(t1 - t0), analysisMs: Math.round(performance.now() - t1) },
+    { flightId: imp.flightId, rows: outcome.report.goodRows, parseMs: Math.round(t1 - t0), importMs: Math.round(t2 - t0), afterCommitMs: Math.round(performance.now() - t2) },
     'flight imported',
   )
   // The signal log of a GPX track is read once; the kept original is the track itself.
@@ -170,14 +195,27 @@ export async function runImport(importId: number): Promise<void> {
 
 /** Moves the upload to raw/ (compressed) and records it on the flight; a re-import reads the kept original in place. */
 export async function keepOriginal(imp: FlightImport, compressed: boolean): Promise<void> {
-  // A re-import reads the kept original in place.
-  if (imp.kind !== 'create') return
+  await recordOriginal(imp, await archiveUpload(imp, compressed))
+}
+
+/** Compresses an upload into raw/; null for a re-import (it reads the kept original in place) or when that fails. */
+function archiveUpload(imp: FlightImport, compressed: boolean): Promise<string | null> {
+  if (imp.kind !== 'create') return Promise.resolve(null)
+  return archiveOriginal(imp.tempFile!, compressed).catch(async (e: Error) => {
+    logger.warn({ err: e.message, flightId: imp.flightId }, 'could not keep the original log')
+    await removeFiles(imp.tempFile)
+    return null
+  })
+}
+
+/** Records a kept original on the flight; removes it when the flight is gone or the update fails. */
+async function recordOriginal(imp: FlightImport, raw: string | null): Promise<void> {
+  if (!raw) return
   try {
-    const raw = await archiveOriginal(imp.tempFile!, compressed)
     const [n] = await Flight.update({ rawFile: raw }, { where: { id: imp.flightId } })
     if (n === 0) await removeFiles(raw)
   } catch (e) {
     logger.warn({ err: (e as Error).message, flightId: imp.flightId }, 'could not keep the original log')
-    await removeFiles(imp.tempFile)
+    await removeFiles(raw)
   }
 }
