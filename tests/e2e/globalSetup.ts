@@ -1,22 +1,9 @@
 // Migrates the test database and starts the real server (built client + API) on a loopback port.
 import { spawn, type ChildProcess } from 'node:child_process'
 import type { TestProject } from 'vitest/node'
+import { waitForHealth } from './support/health.js'
 
 const PORT = Number(process.env.E2E_PORT ?? 3107)
-
-async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
-  const until = Date.now() + timeoutMs
-  while (Date.now() < until) {
-    try {
-      const r = await fetch(url)
-      if (r.ok) return
-    } catch {
-      /* not up yet */
-    }
-    await new Promise((r) => setTimeout(r, 200))
-  }
-  throw new Error(`server did not answer ${url} within ${timeoutMs} ms`)
-}
 
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the browser suite through npm test')

@@ -17,6 +17,7 @@ import { Team } from '../../models/Team.js'
 import { User } from '../../models/User.js'
 import { hashPassword } from '../../services/passwords.js'
 import type { ColumnMapping } from '../../../shared/import/mapping.js'
+import { waitForHealth } from '../../../tests/e2e/support/health.js'
 
 const ROWS = Number(process.argv[2] ?? 1_000_000)
 const BIG_ROWS = Number(process.argv[3] ?? 3_000_000)
@@ -108,16 +109,13 @@ async function startServer(dataDir: string): Promise<ChildProcess> {
     env: { ...process.env, PORT: String(PORT), HOST: '127.0.0.1', DATA_DIR: dataDir, LOG_LEVEL: process.env.BENCH_SERVER_LOG_LEVEL ?? 'warn', NODE_ENV: process.env.NODE_ENV ?? 'production', JOB_POLL_SECONDS: '0.5' },
     stdio: ['ignore', 'inherit', 'inherit'],
   })
-  for (let i = 0; i < 300; i++) {
-    try {
-      if ((await fetch(`http://127.0.0.1:${PORT}/api/health`)).ok) return child
-    } catch {
-      /* not listening yet */
-    }
-    await new Promise((r) => setTimeout(r, 100))
+  try {
+    await waitForHealth(`http://127.0.0.1:${PORT}/api/health`, 30_000)
+    return child
+  } catch (err) {
+    child.kill('SIGTERM')
+    throw err
   }
-  child.kill('SIGTERM')
-  throw new Error('the server did not start')
 }
 
 function rssKb(pid: number, field: 'VmRSS' | 'VmHWM'): number {

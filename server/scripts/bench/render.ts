@@ -12,6 +12,7 @@ import {
   signUpPilot,
   uploadAndWait,
 } from '../../../tests/e2e/support/flightFixtures.js'
+import { waitForHealth } from '../../../tests/e2e/support/health.js'
 
 const PORT = Number(process.env.BENCH_RENDER_PORT ?? 3392)
 const BASE = `http://127.0.0.1:${PORT}`
@@ -22,19 +23,6 @@ const SIZES: Array<{ key: string; rows: number }> = [
   { key: 'render_100k_ms', rows: 100_000 },
   { key: 'render_1m_ms', rows: 1_000_000 },
 ]
-
-async function waitForHealth(timeoutMs: number): Promise<void> {
-  const until = Date.now() + timeoutMs
-  while (Date.now() < until) {
-    try {
-      if ((await fetch(`${BASE}/api/health`)).ok) return
-    } catch {
-      /* not up yet */
-    }
-    await new Promise((r) => setTimeout(r, 200))
-  }
-  throw new Error(`server did not answer within ${timeoutMs} ms`)
-}
 
 function startServer(): ChildProcess {
   return spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
@@ -66,7 +54,7 @@ async function main(): Promise<void> {
   const server = startServer()
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' })
   try {
-    await waitForHealth(30_000)
+    await waitForHealth(`${BASE}/api/health`, 30_000)
     const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
     await signUpPilot(context.request, BASE, `bench-render-${Date.now()}`)
     const ids = await createCourseAndSetup(context.request, BASE)
