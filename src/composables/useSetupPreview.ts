@@ -2,6 +2,7 @@ import { computed, type Ref } from 'vue'
 import type { AntennaKind } from '@shared/types/setup'
 import { estimateBeamwidthDeg } from '@shared/setup/beamwidth'
 import { powerFromInput, setupEirpDbm, type PowerUnit } from '@shared/setup/derive'
+import { dbmToMw } from '@shared/units/power'
 
 /** The parts of the setup form the live figures depend on. */
 export interface SetupPreviewInput {
@@ -50,7 +51,7 @@ export function previewSetup(f: SetupPreviewInput): SetupPreview {
     if (a.gainDbi === null || !Number.isFinite(a.gainDbi)) return { text: '—', estimated: true }
     return { text: `≈ ${Math.round(estimateBeamwidthDeg(a.kind, a.gainDbi))}°`, estimated: true }
   })
-  return { txPowerDbm, txPowerMw, eirpDbm, eirpMw: eirpDbm === null ? null : 10 ** (eirpDbm / 10), beamwidths }
+  return { txPowerDbm, txPowerMw, eirpDbm, eirpMw: eirpDbm === null ? null : dbmToMw(eirpDbm), beamwidths }
 }
 
 /** previewSetup as a computed over the reactive form. */
