@@ -1,6 +1,5 @@
 import { requireFinite, requireNonNegative, requirePositive } from '../units/guards.js'
-import { freeSpaceLossDb } from '../rf/freeSpaceLoss.js'
-import { type LinkBudget } from '../rf/linkBudget.js'
+import { type LinkBudget, receivedPowerDbm } from '../rf/linkBudget.js'
 import { type LogDistanceModel, predictRxPowerDbm } from './logDistanceFit.js'
 
 function checkModel(model: LogDistanceModel): void {
@@ -112,18 +111,6 @@ export function txPowerForRangeDbm(
  * @throws RangeError when a budget term is out of range
  */
 export function freeSpaceModel(budget: LinkBudget): LogDistanceModel {
-  requireFinite('txPowerDbm', budget.txPowerDbm)
-  requireFinite('txGainDbi', budget.txGainDbi)
-  requireFinite('rxGainDbi', budget.rxGainDbi)
-  requireNonNegative('txLossDb', budget.txLossDb)
-  requireNonNegative('rxLossDb', budget.rxLossDb)
   // Friis at d0 = 1 m; free space is the log-distance model with n = 2
-  const interceptDbm =
-    budget.txPowerDbm +
-    budget.txGainDbi +
-    budget.rxGainDbi -
-    budget.txLossDb -
-    budget.rxLossDb -
-    freeSpaceLossDb(1, budget.freqHz)
-  return { interceptDbm, exponent: 2, referenceDistanceM: 1 }
+  return { interceptDbm: receivedPowerDbm(budget, 1), exponent: 2, referenceDistanceM: 1 }
 }

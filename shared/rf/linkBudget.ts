@@ -29,6 +29,11 @@ function checkBudget(b: LinkBudget): void {
   requireNonNegative('rxLossDb', b.rxLossDb)
 }
 
+/** Pt + Gt + Gr − Ltx − Lrx: everything in the budget but the path loss, dBm. */
+function netPowerDbm(b: LinkBudget): number {
+  return b.txPowerDbm + b.txGainDbi + b.rxGainDbi - b.txLossDb - b.rxLossDb
+}
+
 /**
  * Effective isotropic radiated power.
  * @param txPowerDbm conducted transmit power in dBm, finite
@@ -55,14 +60,7 @@ export function eirpDbm(txPowerDbm: number, txGainDbi: number, txLossDb = 0): nu
 export function receivedPowerDbm(budget: LinkBudget, distanceM: number): number {
   checkBudget(budget)
   // Friis (Proc. IRE 34, 1946) in dB: Pr = Pt + Gt + Gr − Ltx − Lrx − FSPL(d)
-  return (
-    budget.txPowerDbm +
-    budget.txGainDbi +
-    budget.rxGainDbi -
-    budget.txLossDb -
-    budget.rxLossDb -
-    freeSpaceLossDb(distanceM, budget.freqHz)
-  )
+  return netPowerDbm(budget) - freeSpaceLossDb(distanceM, budget.freqHz)
 }
 
 /**
@@ -91,14 +89,7 @@ export function allowedPathLossDb(budget: LinkBudget, sensitivityDbm: number, fa
   requireFinite('sensitivityDbm', sensitivityDbm)
   requireNonNegative('fadeMarginDb', fadeMarginDb)
   // Lmax = Pt + Gt + Gr − Lcables − (S + FM), link-budget bookkeeping
-  return (
-    budget.txPowerDbm +
-    budget.txGainDbi +
-    budget.rxGainDbi -
-    budget.txLossDb -
-    budget.rxLossDb -
-    (sensitivityDbm + fadeMarginDb)
-  )
+  return netPowerDbm(budget) - (sensitivityDbm + fadeMarginDb)
 }
 
 /**
