@@ -9,6 +9,7 @@ import { sequelize } from '../db.js'
 import { Course } from '../models/Course.js'
 import { CourseTerrain } from '../models/CourseTerrain.js'
 import { idsUsedByFlights } from './flightUsage.js'
+import { reanalyseCourseFlights } from './flights/flights.js'
 import { orderThenId, searchAnyColumn } from './listQuery.js'
 
 const SORT_COLUMNS: Record<CourseSortKey, string> = { name: 'name', createdAt: 'createdAt', updatedAt: 'updatedAt' }
@@ -125,8 +126,20 @@ export async function createCourse(auth: AuthContext, input: CourseInput): Promi
  */
 export async function updateCourse(auth: AuthContext, id: number, input: CourseInput): Promise<CourseDto> {
   const row = await findCourseRow(auth.teamId, id)
+  const [stationBefore, restBefore] = analysisInputs(row)
   await row.update({ ...input })
+  const [stationAfter, restAfter] = analysisInputs(row)
+  const moved = stationBefore !== stationAfter
+  if (moved || restBefore !== restAfter) await reanalyseCourseFlights(id, moved)
   return getCourse(auth.teamId, id)
+}
+
+/** What of a course the flight analysis reads, as comparable strings: the station's position, then the rest. */
+function analysisInputs(row: Course): [string, string] {
+  return [
+    JSON.stringify([row.stationLat, row.stationLon]),
+    JSON.stringify([row.antennaHeightM, row.groundElevM, row.obstacles]),
+  ]
 }
 
 /**

@@ -9,6 +9,7 @@ import { Course } from '../models/Course.js'
 import { CourseTerrain } from '../models/CourseTerrain.js'
 import { parseTerrainFile } from './terrainFormats.js'
 import { findCourseRow, getCourse } from './courses.js'
+import { reanalyseCourseFlights } from './flights/flights.js'
 
 /** Elevation lookup: (lat, lon) in degrees → metres above mean sea level, NaN outside the data. */
 export type TerrainSampler = (latDeg: number, lonDeg: number) => number
@@ -69,6 +70,7 @@ export async function uploadTerrain(
     await course.update({ terrainId: t.id }, { transaction })
     if (old) await CourseTerrain.destroy({ where: { id: old }, transaction })
   })
+  await reanalyseCourseFlights(courseId, false)
   return getCourse(auth.teamId, courseId)
 }
 
@@ -84,6 +86,7 @@ export async function deleteTerrain(auth: AuthContext, courseId: number): Promis
     await course.update({ terrainId: null }, { transaction })
     await CourseTerrain.destroy({ where: { courseId }, transaction })
   })
+  await reanalyseCourseFlights(courseId, false)
   return getCourse(auth.teamId, courseId)
 }
 

@@ -168,6 +168,20 @@ describe('PATCH /api/flights/:id and POST /api/flights/:id/reanalyse', () => {
     expect(f.body.analysis.sampleCount).toBe(300)
   })
 
+  it('re-analyses the flights of a course whose station moves, and leaves them alone for a rename', async () => {
+    const id = await importReady(makeLog(300))
+    const course = (await s.agent.get(`/api/courses/${courseId}`)).body
+    const { id: _id, hasTerrain: _t, terrain: _tr, createdAt: _c, updatedAt: _u, createdBy: _b, ...input } = course
+    const put = (body: object) => s.agent.put(`/api/courses/${courseId}`).set('X-CSRF-Token', s.csrf).send(body)
+    expect((await put({ ...input, name: 'Renamed strip' })).status).toBe(200)
+    expect((await s.agent.get(`/api/flights/${id}/status`)).body.status).toBe('ready')
+    expect((await put({ ...input, stationLat: 52.03, stationLon: -1.3 })).status).toBe(200)
+    expect((await s.agent.get(`/api/flights/${id}/status`)).body.status).not.toBe('ready')
+    expect((await waitForStatus(s, id)).status).toBe('ready')
+    const { rows } = await pgPool().query('SELECT lat, lon, dist_m FROM samples WHERE flight_id = $1 AND seq IN (0, 150) ORDER BY seq', [id])
+    for (const r of rows) expect(r.dist_m).toBeCloseTo(groundDistanceM(52.03, -1.3, r.lat, r.lon), 0)
+  })
+
   it('re-analyses on demand', async () => {
     const id = await importReady(makeLog(200))
     const res = await s.agent.post(`/api/flights/${id}/reanalyse`).set('X-CSRF-Token', s.csrf)

@@ -165,6 +165,21 @@ export async function reanalyseFlight(auth: AuthContext, id: number): Promise<Fl
 }
 
 /**
+ * Queues a re-analysis of every flight flown on a course whose geometry changed (station, antenna height, ground
+ * elevation, obstacles or terrain), so stored analyses never describe a course that no longer exists.
+ * @param courseId the course (already checked to be in the caller's team)
+ * @param recomputeDistances true when the station moved, so sample distances change too
+ * @returns how many flights were queued
+ */
+export async function reanalyseCourseFlights(courseId: number, recomputeDistances: boolean): Promise<number> {
+  const flights = await Flight.findAll({ where: { courseId }, attributes: ['id'] })
+  if (flights.length === 0) return 0
+  await Flight.update({ status: 'analysing' }, { where: { courseId } })
+  for (const f of flights) await enqueueAnalysis(f.id, recomputeDistances)
+  return flights.length
+}
+
+/**
  * Deletes a flight, its samples (cascade), its import records and its kept original.
  * @param auth the caller
  * @param id flight id
