@@ -46,6 +46,14 @@ export async function verifyCredentials(email: string, password: string, address
   return user.id
 }
 
+// The current team's membership; falls back to the oldest membership (and records it) when the current team is gone.
+async function currentMembership<M extends Membership>(user: User, memberships: M[]): Promise<M | null> {
+  const current = memberships.find((m) => m.teamId === user.currentTeamId) ?? memberships[0]
+  if (!current) return null
+  if (current.teamId !== user.currentTeamId) await user.update({ currentTeamId: current.teamId })
+  return current
+}
+
 /**
  * Resolves the caller's current team and role (read on every request, so role changes apply at
  * once). Falls back to another membership when the current team is gone; null without any.
@@ -54,10 +62,8 @@ export async function resolveAuth(userId: number): Promise<AuthContext | null> {
   const user = await User.findByPk(userId, { attributes: ['id', 'currentTeamId'] })
   if (!user) return null
   const memberships = await Membership.findAll({ where: { userId }, order: [['id', 'ASC']] })
-  const current = memberships.find((m) => m.teamId === user.currentTeamId) ?? memberships[0]
-  if (!current) return null
-  if (current.teamId !== user.currentTeamId) await user.update({ currentTeamId: current.teamId })
-  return { userId, teamId: current.teamId, role: current.role }
+  const current = await currentMembership(user, memberships)
+  return current ? { userId, teamId: current.teamId, role: current.role } : null
 }
 
 /**
@@ -65,14 +71,17 @@ export async function resolveAuth(userId: number): Promise<AuthContext | null> {
  * @throws HttpError 401 when the user no longer exists or has no team
  */
 export async function getMe(userId: number): Promise<MeDto> {
-  const auth = await resolveAuth(userId)
   const user = await User.findByPk(userId)
-  if (!auth || !user) throw unauthenticated()
+  if (!user) throw unauthenticated()
   const memberships = await Membership.findAll({
     where: { userId },
     include: [{ model: Team, as: 'team' }],
-    order: [['teamId', 'ASC']],
+    order: [['id', 'ASC']],
   })
-  const teams: TeamRef[] = memberships.map((m) => ({ id: m.teamId, name: m.team?.name ?? '', role: m.role as Role }))
-  return { id: user.id, email: user.email, name: user.name, units: user.units, currentTeamId: auth.teamId, teams }
+  const current = await currentMembership(user, memberships)
+  if (!current) throw unauthenticated()
+  const teams: TeamRef[] = [...memberships]
+    .sort((a, b) => a.teamId - b.teamId)
+    .map((m) => ({ id: m.teamId, name: m.team?.name ?? '', role: m.role as Role }))
+  return { id: user.id, email: user.email, name: user.name, units: user.units, currentTeamId: current.teamId, teams }
 }
