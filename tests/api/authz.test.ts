@@ -16,7 +16,7 @@ import { newToken } from '../../server/services/tokens.js'
 import { Invite } from '../../server/models/Invite.js'
 import { PasswordReset } from '../../server/models/PasswordReset.js'
 import { createTeam, createUser, csrfFor, resetDb, signInAs, TEST_PASSWORD, type Agent, type TestUser } from './helpers.js'
-import { mappingText } from './flights-helpers.js'
+import { mappingText, waitForStatus } from './flights-helpers.js'
 
 type Principal = 'anonymous' | Role | 'otherTeamAdmin'
 type Owner = 'pilot' | 'member'
@@ -136,16 +136,10 @@ const newSetup = async (s: Session, label: string) =>
     rxAntennas: [{ label: 'A', type: 'dipole', kind: 'omni', gainDbi: 2 }], sensitivityDbm: -105, notes: MARKER,
   })).id
 
-/** Polls the status endpoint until the flight is ready (bounded: ~30 s); fails on a failed import. */
+/** Waits until the flight is ready; fails on a failed import. */
 async function waitReady(s: Session, id: number): Promise<void> {
-  for (let i = 0; i < 300; i++) {
-    const st = await s.agent.get(`/api/flights/${id}/status`)
-    expect(st.status).toBe(200)
-    if (st.body.status === 'ready') return
-    if (st.body.status === 'failed') throw new Error(`flight ${id} failed: ${JSON.stringify(st.body.failure)}`)
-    await new Promise((r) => setTimeout(r, 100))
-  }
-  throw new Error(`flight ${id} did not become ready`)
+  const st = await waitForStatus(s, id)
+  if (st.status !== 'ready') throw new Error(`flight ${id} failed: ${JSON.stringify(st.failure)}`)
 }
 async function newFlight(s: Session, c: { courseId: number; setupId: number }, label: string): Promise<number> {
   const res = await s.agent.post('/api/flights').set('X-CSRF-Token', s.csrf)

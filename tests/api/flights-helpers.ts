@@ -39,7 +39,7 @@ export function upload(s: SignedIn, file: string | Buffer, o: UploadOptions) {
 }
 
 /** Polls the status endpoint until the flight is ready or failed (at most ~60 s of 100 ms polls). */
-export async function waitForStatus(s: SignedIn, id: number): Promise<FlightStatusDto> {
+export async function waitForStatus(s: Pick<SignedIn, 'agent'>, id: number): Promise<FlightStatusDto> {
   for (let i = 0; i < 600; i++) {
     const res = await s.agent.get(`/api/flights/${id}/status`)
     expect(res.status).toBe(200)
