@@ -1,4 +1,4 @@
-import { parabolicPatternDb } from '../antenna/pattern.js'
+import { gainOffBoresightDbi } from '../antenna/pattern.js'
 import { offBoresightAngleDeg } from '../geo/boresight.js'
 import { estimateBeamwidthDeg } from '../setup/beamwidth.js'
 import { requireFinite } from '../units/guards.js'
@@ -39,7 +39,7 @@ export function effectiveRxGainDbi(setup: SetupBudgetTerms, direction: TypicalDi
       const bw = a.beamwidthDeg ?? estimateBeamwidthDeg('directional', a.gainDbi)
       const off = offBoresightAngleDeg(a.azimuthDeg ?? 0, a.elevationDeg ?? 0, direction.azimuthDeg, direction.elevationDeg)
       // parabolic main lobe (3GPP TR 36.942 §4.2.1.1) via the core
-      g += parabolicPatternDb(off, bw)
+      g = gainOffBoresightDbi(a.gainDbi, off, bw)
     }
     if (g > best) best = g
   }

@@ -1,4 +1,4 @@
-import { parabolicPatternDb } from '../antenna/pattern.js'
+import { gainOffBoresightDbi } from '../antenna/pattern.js'
 import { beamwidthFromGainDeg } from '../antenna/beamwidth.js'
 import { offBoresightAngleDeg } from '../geo/boresight.js'
 import { freeSpaceLossDb } from '../rf/freeSpaceLoss.js'
@@ -61,7 +61,7 @@ export function antennaGainTowardDbi(antenna: GeneratorAntenna, azimuthDeg: numb
   if (antenna.kind === 'omni') return antenna.gainDbi
   const bw = antenna.beamwidthDeg ?? beamwidthFromGainDeg(antenna.gainDbi)
   const off = offBoresightAngleDeg(antenna.azimuthDeg ?? 0, antenna.elevationDeg ?? 0, azimuthDeg, elevationDeg)
-  return antenna.gainDbi + parabolicPatternDb(off, bw)
+  return gainOffBoresightDbi(antenna.gainDbi, off, bw)
 }
 
 /**
