@@ -37,7 +37,7 @@ async function terrainsById(ids: (number | null)[]): Promise<Map<number, CourseT
 }
 
 /** Maps a course row (and its terrain summary, if any) to its DTO. */
-export function toCourseDto(c: Course, terrain: CourseTerrain | null): CourseDto {
+function toCourseDto(c: Course, terrain: CourseTerrain | null): CourseDto {
   return {
     id: c.id,
     teamId: c.teamId,

@@ -15,7 +15,7 @@ import { orderThenId, searchAnyColumn } from './listQuery.js'
 const SORT_COLUMNS: Record<SetupSortKey, string> = { name: 'name', band: 'band', freqMHz: 'freqMhz', createdAt: 'createdAt' }
 
 /** Maps a setup row to its DTO; EIRP and mW are derived. */
-export function toSetupDto(s: LinkSetup, inUse: boolean): LinkSetupDto {
+function toSetupDto(s: LinkSetup, inUse: boolean): LinkSetupDto {
   return {
     id: s.id,
     teamId: s.teamId,

@@ -20,7 +20,7 @@ const READ_BATCH = 50_000
  * @param overview builder of the flight's stored overview
  * @returns the analysis arrays
  */
-export async function readSeries(flightId: number, overview?: OverviewBuilder): Promise<FlightSamples & { thinnedBy: number }> {
+async function readSeries(flightId: number, overview?: OverviewBuilder): Promise<FlightSamples & { thinnedBy: number }> {
   const c = new SeriesCollector()
   const row = emptySampleRow()
   const n = (v: number | null) => (v === null ? NaN : v)

@@ -48,7 +48,7 @@ export const flightPatchSchema = z
   .strict()
 export type FlightPatch = z.infer<typeof flightPatchSchema>
 
-export function toFlightDto(f: Flight): FlightDto {
+function toFlightDto(f: Flight): FlightDto {
   return {
     id: f.id,
     courseId: f.courseId,
@@ -97,7 +97,7 @@ export async function listFlights(teamId: number, q: FlightListQuery): Promise<L
 }
 
 /** The team's flight row or 404 (another team's id answers the same). */
-export async function findTeamFlight(teamId: number, id: number): Promise<Flight> {
+async function findTeamFlight(teamId: number, id: number): Promise<Flight> {
   const f = await Flight.findOne({ where: { id, teamId } })
   if (!f) throw notFound(`Flight ${id}`)
   return f
