@@ -166,15 +166,7 @@ export function fresnelProfile(
     meetsRule: true,
   }
   for (const x of xs) {
-    const d2 = Math.max(0, pathLengthM - x)
-    const bulge = earthBulgeM(x, d2)
-    const los = ends.antennaHeightM + ((ends.aircraftHeightM - ends.antennaHeightM) * x) / (pathLengthM || 1)
-    const r = pathLengthM > 0 ? fresnelZoneRadiusM(freqHz, x, d2) : 0
-    p.groundM.push(bulge)
-    p.lineOfSightM.push(los)
-    p.f1UpperM.push(los + r)
-    p.f1LowerM.push(los - r)
-    p.f60LowerM.push(los - REQUIRED_CLEARANCE_FRACTION * r)
+    const { bulge, los, r } = pushPathPoint(p, ends, freqHz, x, 0)
     if (r <= 0) continue
     let top = bulge
     let by = 'ground'
@@ -194,6 +186,29 @@ export function fresnelProfile(
   if (!Number.isFinite(p.minClearanceFraction)) p.minClearanceFraction = 1
   p.meetsRule = p.minClearanceFraction >= REQUIRED_CLEARANCE_FRACTION
   return p
+}
+
+/**
+ * Appends one point of the drawn profile at x: ground (terrain height above the datum plus the earth's bulge),
+ * the line of sight and the first-zone envelope. A zero-length path has no zone (radius 0).
+ */
+function pushPathPoint(
+  p: FresnelProfile,
+  ends: ProfileEnds,
+  freqHz: number,
+  x: number,
+  terrainM: number,
+): { bulge: number; los: number; r: number } {
+  const d2 = Math.max(0, p.pathLengthM - x)
+  const bulge = earthBulgeM(x, d2)
+  const los = ends.antennaHeightM + ((ends.aircraftHeightM - ends.antennaHeightM) * x) / (p.pathLengthM || 1)
+  const r = p.pathLengthM > 0 ? fresnelZoneRadiusM(freqHz, x, d2) : 0
+  p.groundM.push(terrainM + bulge)
+  p.lineOfSightM.push(los)
+  p.f1UpperM.push(los + r)
+  p.f1LowerM.push(los - r)
+  p.f60LowerM.push(los - REQUIRED_CLEARANCE_FRACTION * r)
+  return { bulge, los, r }
 }
 
 function localOffsetLength(ends: ProfileEnds): number {
@@ -262,16 +277,7 @@ function terrainProfileOnPath(
     limitedAtM: 0,
     meetsRule: true,
   }
-  for (const x of xs) {
-    const d2 = Math.max(0, pathLengthM - x)
-    const los = ends.antennaHeightM + ((ends.aircraftHeightM - ends.antennaHeightM) * x) / pathLengthM
-    const r = fresnelZoneRadiusM(freqHz, x, d2)
-    p.groundM.push(interpolate(tx, rel, x) + earthBulgeM(x, d2))
-    p.lineOfSightM.push(los)
-    p.f1UpperM.push(los + r)
-    p.f1LowerM.push(los - r)
-    p.f60LowerM.push(los - REQUIRED_CLEARANCE_FRACTION * r)
-  }
+  for (const x of xs) pushPathPoint(p, ends, freqHz, x, interpolate(tx, rel, x))
   const worst = terrainProfileClearance(path, Float64Array.from(tx), Float64Array.from(rel))
   let min = worst?.clearanceFraction ?? Infinity
   if (worst) p.limitedAtM = worst.distanceM
