@@ -36,6 +36,12 @@ async function terrainsById(ids: (number | null)[]): Promise<Map<number, CourseT
   return new Map(rows.map((t) => [t.id, t]))
 }
 
+// One course's DTO with its terrain summary.
+async function courseDto(row: Course): Promise<CourseDto> {
+  const terrain = row.terrainId == null ? null : await CourseTerrain.findByPk(row.terrainId, { attributes: TERRAIN_SUMMARY })
+  return toCourseDto(row, terrain)
+}
+
 /** Maps a course row (and its terrain summary, if any) to its DTO. */
 function toCourseDto(c: Course, terrain: CourseTerrain | null): CourseDto {
   return {
@@ -93,8 +99,7 @@ export async function findCourseRow(teamId: number, id: number): Promise<Course>
  */
 export async function getCourse(teamId: number, id: number): Promise<CourseDto> {
   const row = await findCourseRow(teamId, id)
-  const terrains = await terrainsById([row.terrainId ?? null])
-  return toCourseDto(row, terrains.get(row.terrainId ?? -1) ?? null)
+  return courseDto(row)
 }
 
 /**
@@ -105,8 +110,7 @@ export async function getCourse(teamId: number, id: number): Promise<CourseDto> 
 export async function loadCourse(id: number): Promise<CourseDto | null> {
   const row = await Course.findByPk(id)
   if (!row) return null
-  const terrains = await terrainsById([row.terrainId ?? null])
-  return toCourseDto(row, terrains.get(row.terrainId ?? -1) ?? null)
+  return courseDto(row)
 }
 
 /**
@@ -131,7 +135,7 @@ export async function updateCourse(auth: AuthContext, id: number, input: CourseI
   const [stationAfter, restAfter] = analysisInputs(row)
   const moved = stationBefore !== stationAfter
   if (moved || restBefore !== restAfter) await reanalyseCourseFlights(id, moved)
-  return getCourse(auth.teamId, id)
+  return courseDto(row)
 }
 
 /** What of a course the flight analysis reads, as comparable strings: the station's position, then the rest. */
