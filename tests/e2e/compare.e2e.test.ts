@@ -5,6 +5,7 @@ import { DEMO_PASSWORD, DEMO_USERS, seedDemoTeam } from '../../server/scripts/se
 import { seedDemoCoursesAndSetups } from '../../server/scripts/seed/courses.js'
 import { seedDemoFlightsAndComparison } from '../../server/scripts/seed/flights.js'
 import { closeDb, pgPool } from '../../server/db.js'
+import { csrf } from './support/flightFixtures'
 
 const SHOTS = 'tests/e2e/screenshots'
 const DESKTOP = { width: 1440, height: 900 }
@@ -57,7 +58,7 @@ beforeAll(async () => {
   await closeDb()
   browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' })
   context = await browser.newContext({ viewport: DESKTOP })
-  const token = ((await (await context.request.get(`${base}/api/auth/csrf`)).json()) as { token: string }).token
+  const token = await csrf(context.request, base)
   const res = await context.request.post(`${base}/api/auth/sign-in`, {
     headers: { 'X-CSRF-Token': token },
     data: { email: PILOT.email, password: DEMO_PASSWORD },

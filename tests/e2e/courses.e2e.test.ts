@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
 import type { LinkSetupDto } from '../../shared/types/setup.js'
-import { TEST_SETUP, flightCsv, generateTestFlight, uploadAndWait } from './support/flightFixtures'
+import { TEST_SETUP, csrf, flightCsv, generateTestFlight, uploadAndWait } from './support/flightFixtures'
 
 const SHOTS = 'tests/e2e/screenshots'
 const stamp = `${Date.now()}-${Math.floor(Math.random() * 1e6)}`
@@ -18,8 +18,7 @@ let setupUrl = ''
 
 /** Signs up through the API in the browser context, so its pages share the session cookie. */
 async function signUp(ctx: BrowserContext): Promise<void> {
-  const csrf = await ctx.request.get(`${base}/api/auth/csrf`)
-  const token = ((await csrf.json()) as { token: string }).token
+  const token = await csrf(ctx.request, base)
   const res = await ctx.request.post(`${base}/api/auth/sign-up`, { data: pilot, headers: { 'X-CSRF-Token': token } })
   if (!res.ok()) throw new Error(`sign-up answered ${res.status()}: ${await res.text()}`)
 }
@@ -90,7 +89,7 @@ describe('courses and link setups', () => {
 
   it('takes the planned route from a flight flown on the course, then saves it with the course', async () => {
     const courseId = Number(courseUrl.split('/').pop())
-    const token = ((await (await context.request.get(`${base}/api/auth/csrf`)).json()) as { token: string }).token
+    const token = await csrf(context.request, base)
     const setup = (await (await context.request.post(`${base}/api/setups`, { data: TEST_SETUP, headers: { 'X-CSRF-Token': token } })).json()) as LinkSetupDto
     // 2 rows a second keeps the import short; the track still has the leg's turns
     await uploadAndWait(context.request, base, { courseId, setupId: setup.id }, 'Route survey', flightCsv(generateTestFlight(2)))

@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
-import { createCourseAndSetup, flightCsv, generateTestFlight, signUpPilot, uploadAndWait } from './support/flightFixtures'
+import { createCourseAndSetup, csrf, flightCsv, generateTestFlight, signUpPilot, uploadAndWait } from './support/flightFixtures'
 
 const SHOTS = 'tests/e2e/screenshots'
 const DESKTOP = { width: 1440, height: 900 }
@@ -123,7 +123,7 @@ describe('the flight screen', () => {
       }
     }
     const flight = (await (await context.request.get(`${base}/api/flights/${flightUrl.split('/').pop()}`)).json()) as { courseId: number }
-    const token = ((await (await context.request.get(`${base}/api/auth/csrf`)).json()) as { token: string }).token
+    const token = await csrf(context.request, base)
     const up = await context.request.post(`${base}/api/courses/${flight.courseId}/terrain`, {
       headers: { 'X-CSRF-Token': token },
       multipart: { file: { name: 'N52W002.hgt', mimeType: 'application/octet-stream', buffer: tile } },

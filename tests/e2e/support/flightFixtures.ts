@@ -54,7 +54,8 @@ export const TEST_SETUP: SetupInput = {
   notes: 'Test setup.',
 }
 
-async function csrf(req: APIRequestContext, base: string): Promise<string> {
+/** The session's CSRF token for the request context (creating the session). */
+export async function csrf(req: APIRequestContext, base: string): Promise<string> {
   const r = await req.get(`${base}/api/auth/csrf`)
   return ((await r.json()) as { token: string }).token
 }
