@@ -1,4 +1,4 @@
-import type { DropoutCause } from '@shared/dropouts/classify'
+import type { DropoutCause, DropoutEvidence } from '@shared/dropouts/classify'
 
 /** How each probable cause is named, marked and explained on the flight screen. */
 export interface CauseStyle {
@@ -55,16 +55,7 @@ export function causeStyle(cause: string): CauseStyle {
 }
 
 /** The evidence numbers of a dropout, as the table and the map hover show them. */
-export interface EvidenceFields {
-  minClearanceFraction: number | null
-  limitingObstacle: string | null
-  maxPointingLossDb: number
-  predictedMarginDb: number | null
-  signalBeforeDbm: number | null
-  suddenFade: boolean
-  nearestNullM: number | null
-  nearNull: boolean
-}
+export type EvidenceFields = Omit<DropoutEvidence, 'distanceM' | 'heightM'>
 
 /**
  * One line of plain words listing the figures behind a classification.
