@@ -169,11 +169,11 @@ export async function deleteSetup(auth: AuthContext, id: number): Promise<void> 
   try {
     await sequelize().transaction(async (transaction) => {
       const row = await findRow(auth.teamId, id, transaction)
-      const first = await LinkSetup.findByPk(row.lineageId, { transaction })
+      const versions = await LinkSetup.findAll({ where: { lineageId: row.lineageId, teamId: auth.teamId }, transaction })
+      const first = versions.find((v) => v.id === row.lineageId)
       if (!canEditOwned(auth, first?.createdBy ?? row.createdBy)) {
         throw forbidden('Only the setup’s creator or an admin can delete it')
       }
-      const versions = await LinkSetup.findAll({ where: { lineageId: row.lineageId, teamId: auth.teamId }, transaction })
       const ids = versions.map((v) => v.id)
       if ((await idsUsedByFlights('setup_id', ids, transaction)).size > 0) throw inUse()
       await LinkSetup.destroy({ where: { id: ids }, transaction })
