@@ -1,5 +1,6 @@
 import { rangeFactor } from '../propagation/predictions.js'
 import { requireFinite, requireNonNegative } from '../units/guards.js'
+import { dbToRatio } from '../units/power.js'
 
 /** What an advantage in dB equals in transmit power and in range. */
 export interface AdvantageEquivalents {
@@ -12,7 +13,6 @@ export interface AdvantageEquivalents {
 }
 
 function formatFactor(x: number): string {
-  if (x >= 100) return x.toFixed(0)
   if (x >= 10) return x.toFixed(0)
   if (x >= 0.1) return x.toFixed(1)
   return x.toPrecision(1)
@@ -27,8 +27,8 @@ function formatFactor(x: number): string {
  */
 export function advantageEquivalents(deltaDb: number, exponent: number | null): AdvantageEquivalents {
   requireFinite('deltaDb', deltaDb)
-  // dB to power ratio (ITU-R V.574); gain and power add alike in the link budget
-  const powerFactor = 10 ** (deltaDb / 10)
+  // gain and power add alike in the link budget
+  const powerFactor = dbToRatio(deltaDb)
   const range = exponent === null ? null : rangeFactor(deltaDb, exponent)
   const sign = deltaDb >= 0 ? '+' : '−'
   return {

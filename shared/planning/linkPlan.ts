@@ -9,7 +9,7 @@ import {
   txPowerForRangeDbm,
 } from '../propagation/predictions.js'
 import { setupEirpDbm } from '../setup/derive.js'
-import { dbmToMw } from '../units/power.js'
+import { dbmToMw, mwToDbm } from '../units/power.js'
 import { requireFinite, requireNonNegative, requirePositive } from '../units/guards.js'
 import { checkPowerLimits, type LimitCheck, type PowerLimit } from './powerLimits.js'
 
@@ -178,7 +178,7 @@ export function planLink(input: PlanInput): LinkPlan {
     withGain: tradeOption(input, r.txPowerDbm, r.rxGainDbi + tradeDb, rangeM * factor, directional || tradeDb > 0),
     withPower: tradeOption(
       input,
-      10 * Math.log10(equivalentTxPowerMw(dbmToMw(r.txPowerDbm), tradeDb)),
+      mwToDbm(equivalentTxPowerMw(dbmToMw(r.txPowerDbm), tradeDb)),
       r.rxGainDbi,
       rangeM * factor,
       directional,
