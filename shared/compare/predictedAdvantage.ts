@@ -1,6 +1,7 @@
 import { gainOffBoresightDbi } from '../antenna/pattern.js'
 import { offBoresightAngleDeg } from '../geo/boresight.js'
 import { estimateBeamwidthDeg } from '../setup/beamwidth.js'
+import { medianOf } from '../stats/median.js'
 import { requireFinite } from '../units/guards.js'
 
 /** The datasheet terms of a setup that set its link budget. */
@@ -90,7 +91,8 @@ export function typicalDirection(
   }
   let sx = 0
   let sy = 0
-  const elev: number[] = []
+  const elev = new Float64Array(eastM.length)
+  let count = 0
   for (let i = 0; i < eastM.length; i++) {
     const e = eastM[i]!
     const n = northM[i]!
@@ -98,11 +100,8 @@ export function typicalDirection(
     if (!Number.isFinite(h) || h < minDistanceM || !Number.isFinite(heightAboveAntennaM[i]!)) continue
     sx += e / h
     sy += n / h
-    elev.push((Math.atan2(heightAboveAntennaM[i]!, h) * 180) / Math.PI)
+    elev[count++] = (Math.atan2(heightAboveAntennaM[i]!, h) * 180) / Math.PI
   }
-  if (elev.length === 0) return null
-  elev.sort((p, q) => p - q)
-  const mid = elev.length >> 1
-  const elevationDeg = elev.length % 2 ? elev[mid]! : (elev[mid - 1]! + elev[mid]!) / 2
-  return { azimuthDeg: ((Math.atan2(sx, sy) * 180) / Math.PI + 360) % 360, elevationDeg }
+  if (count === 0) return null
+  return { azimuthDeg: ((Math.atan2(sx, sy) * 180) / Math.PI + 360) % 360, elevationDeg: medianOf(elev, 0, count) }
 }
