@@ -2,7 +2,7 @@
 // database on the project's own cluster and prints `name: value` lines.
 import fs from 'node:fs'
 import path from 'node:path'
-import { ROOT, ensureClientBuild, ensureDependencies, persistentSecret, runAsync, say } from './lib/run.mjs'
+import { ROOT, bin, ensureClientBuild, ensureDependencies, runAsync, say, sessionSecret } from './lib/run.mjs'
 import { ensureCluster, stopCluster } from './lib/pg.mjs'
 
 ensureDependencies()
@@ -16,7 +16,7 @@ const env = {
   DATABASE_URL: url,
   NODE_ENV: 'production',
   LOG_LEVEL: 'warn',
-  SESSION_SECRET: persistentSecret(path.join(ROOT, '.data'), 'session-secret'),
+  SESSION_SECRET: sessionSecret(),
   CHROMIUM_PATH: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
 }
 const only = process.argv.slice(2)
@@ -32,7 +32,7 @@ try {
       continue
     }
     say(`── bench: ${b}`)
-    const code = await runAsync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [file], { env })
+    const code = await runAsync(bin('tsx'), [file], { env })
     if (code !== 0) failed++
   }
 } finally {

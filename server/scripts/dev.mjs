@@ -1,7 +1,6 @@
 // `npm run dev`: the API under tsx watch and the Vite dev server (hot reload, /api proxied to the API).
-import path from 'node:path'
 import { spawn } from 'node:child_process'
-import { ROOT, ensureDependencies, must, persistentSecret } from './lib/run.mjs'
+import { ROOT, bin, ensureDependencies, must, sessionSecret } from './lib/run.mjs'
 import { devDatabase } from './lib/database.mjs'
 
 ensureDependencies()
@@ -10,10 +9,9 @@ const env = {
   ...process.env,
   DATABASE_URL: db.url,
   NODE_ENV: 'development',
-  SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(path.join(ROOT, '.data'), 'session-secret'),
+  SESSION_SECRET: sessionSecret(),
   PUBLIC_URL: process.env.PUBLIC_URL ?? 'http://127.0.0.1:5173',
 }
-const bin = (n) => path.join(ROOT, 'node_modules', '.bin', n)
 must(bin('tsx'), ['server/scripts/prepare.ts'], { env })
 const children = [
   spawn(bin('tsx'), ['watch', 'server/index.ts'], { cwd: ROOT, env, stdio: 'inherit' }),

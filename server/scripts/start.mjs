@@ -1,7 +1,6 @@
 // `npm start`: everything needed to run Ellipsoid with demo data on a fresh Debian machine.
-import path from 'node:path'
 import { spawn } from 'node:child_process'
-import { ROOT, ensureClientBuild, ensureDependencies, must, persistentSecret, say } from './lib/run.mjs'
+import { ROOT, bin, ensureClientBuild, ensureDependencies, must, say, sessionSecret } from './lib/run.mjs'
 import { devDatabase } from './lib/database.mjs'
 
 ensureDependencies()
@@ -10,9 +9,9 @@ const env = {
   ...process.env,
   DATABASE_URL: db.url,
   NODE_ENV: process.env.NODE_ENV ?? 'production',
-  SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(path.join(ROOT, '.data'), 'session-secret'),
+  SESSION_SECRET: sessionSecret(),
 }
-const tsx = path.join(ROOT, 'node_modules', '.bin', 'tsx')
+const tsx = bin('tsx')
 try {
   must(tsx, ['server/scripts/prepare.ts'], { env })
   ensureClientBuild()

@@ -2,7 +2,7 @@
 // browser suite. Ends with one summary line and a non-zero exit on any failure.
 import fs from 'node:fs'
 import path from 'node:path'
-import { ROOT, ensureClientBuild, ensureDependencies, isRoot, must, runAsync, say, which } from './lib/run.mjs'
+import { ROOT, bin, ensureClientBuild, ensureDependencies, isRoot, must, runAsync, say, which } from './lib/run.mjs'
 import { testDatabase } from './lib/database.mjs'
 
 function ensureChromium() {
@@ -29,7 +29,6 @@ const env = {
   BCRYPT_COST: process.env.BCRYPT_COST ?? '4',
   CHROMIUM_PATH: which('chromium') ?? '/usr/bin/chromium',
 }
-const bin = (name) => path.join(ROOT, 'node_modules', '.bin', name)
 const steps = []
 async function step(name, cmd, args, resultsFile) {
   say(`── ${name}`)

@@ -76,6 +76,16 @@ export function ensureClientBuild() {
   must(path.join(ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'])
 }
 
+/** Path of an installed command-line tool (node_modules/.bin). */
+export function bin(name) {
+  return path.join(ROOT, 'node_modules', '.bin', name)
+}
+
+/** SESSION_SECRET when set, else one generated once into .data so restarts keep sessions valid. */
+export function sessionSecret() {
+  return process.env.SESSION_SECRET ?? persistentSecret(path.join(ROOT, '.data'), 'session-secret')
+}
+
 /** A secret kept in .data so restarts keep sessions valid. */
 export function persistentSecret(dataDir, name, bytes = 32) {
   fs.mkdirSync(dataDir, { recursive: true })
